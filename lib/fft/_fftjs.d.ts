@@ -1,0 +1,2 @@
+declare const FFT: unknown;
+export default FFT;
