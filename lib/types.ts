@@ -35,3 +35,19 @@ export interface DesignWarning {
   /** One sentence for the report. */
   message: string;
 }
+
+/**
+ * One straight piece of a requirement mask drawn on a response figure: the
+ * response must stay below (`bound: "upper"`) or above (`bound: "lower"`) the
+ * line from (from, level) to (to, toLevel ?? level). Frequencies in Hz (or
+ * seconds on a time-axis figure), levels in the figure's y unit (dB, samples…).
+ */
+export interface MaskSegment {
+  from: number;
+  to: number;
+  level: number;
+  toLevel?: number;
+  bound: "upper" | "lower";
+  /** Short label, e.g. the requirement id. */
+  label?: string;
+}
