@@ -8,3 +8,4 @@
  * @module
  */
 export * from "./windows.ts";
+export * from "./kaiser.ts";
