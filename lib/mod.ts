@@ -14,3 +14,4 @@ export * from "./window/mod.ts";
 export * from "./response/mod.ts";
 export * from "./fir/mod.ts";
 export * from "./verify/mod.ts";
+export * from "./poly/mod.ts";
