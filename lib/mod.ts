@@ -15,3 +15,4 @@ export * from "./response/mod.ts";
 export * from "./fir/mod.ts";
 export * from "./verify/mod.ts";
 export * from "./poly/mod.ts";
+export * from "./fixed/mod.ts";
