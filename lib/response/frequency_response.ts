@@ -4,7 +4,7 @@ import {
   requireSampleRate,
   requireSamples,
 } from "../_validate.ts";
-import { isPowerOfTwo, realSpectrum } from "../fft/fft.ts";
+import { realFft } from "../fft/real_fft.ts";
 
 /** A complex frequency response sampled at known frequencies. */
 export interface FrequencyResponse {
@@ -19,25 +19,47 @@ export interface FrequencyResponse {
 /** Options for {@link frequencyResponse}. */
 export interface FrequencyGridOptions {
   /**
-   * Number of equally spaced frequencies from 0 to fs/2 inclusive; one less
-   * than a power of two plus one (e.g. 513, 1025, 4097) so the FFT path applies.
+   * Number of equally spaced frequencies from 0 to fs/2 inclusive, ≥ 2. Any
+   * count works; a power of two plus one (513, 1025, 4097…) is fastest.
    * @default 4097
    */
   points?: number;
+  /**
+   * Denominator a[0..M] of a rational filter B(z)/A(z), a[0] ≠ 0; the first
+   * argument is then the numerator b.
+   * @default [1] (an FIR filter)
+   */
+  denominator?: ArrayLike<number>;
+}
+
+/** Fold c modulo `size` and take its real DFT: exact DFT samples of a long polynomial. */
+function foldedSpectrum(
+  c: ArrayLike<number>,
+  size: number,
+): { re: Float64Array; im: Float64Array } {
+  const folded = new Float64Array(size);
+  for (let n = 0; n < c.length; n++) folded[n % size]! += c[n] as number;
+  return realFft(folded);
 }
 
 /**
- * Frequency response of an FIR filter on a dense grid from 0 to fs/2, by FFT:
- * H(f) = Σ h[n] e^(−j2πfn/fs) at f_k = k·fs/(2(points−1)).
+ * Frequency response on a dense grid from 0 to fs/2, by FFT:
+ * H(f) = B(f)/A(f) with B(f) = Σ b[n] e^(−j2πfn/fs) (A likewise), at
+ * f_k = k·fs/(2(points−1)), k = 0 … points−1.
  *
- * Taps longer than the transform are folded modulo its length first, which
- * gives the exact DFT samples (no truncation).
+ * Coefficient lists longer than the transform are folded modulo its length
+ * first, which gives the exact DFT samples (no truncation). Grids whose
+ * transform length 2(points−1) is not a power of two use Bluestein's algorithm.
  *
- * @param taps FIR coefficients h[0..N−1].
+ * Source: Oppenheim & Schafer, Discrete-Time Signal Processing, 3rd ed.,
+ * §5.3 (frequency response of rational systems) and §8.4 (DFT as samples of the DTFT).
+ *
+ * @param taps FIR taps h[0..N−1], or the numerator b when `options.denominator` is given.
  * @param fs Sample rate in Hz, > 0.
- * @param options Grid density.
+ * @param options Grid density and optional denominator.
  * @returns The response at `points` frequencies, 0 and fs/2 included.
- * @throws {RangeError} When fs ≤ 0 or points − 1 is not a power of two ≥ 2.
+ * @throws {RangeError} When fs ≤ 0, points < 2 or a[0] = 0.
+ * @throws {TypeError} When a coefficient is not finite.
  * @example
  * ```ts
  * import { frequencyResponse } from "./frequency_response.ts";
@@ -56,19 +78,34 @@ export function frequencyResponse(
   requireSamples("Taps", taps);
   requireSampleRate(fs);
   const points = options.points ?? 4097;
-  requireInteger("Number of frequency points", points, 3);
-  const size = 2 * (points - 1);
-  if (!isPowerOfTwo(size)) {
-    throw new RangeError(
-      `Number of frequency points must be a power of two plus one (e.g. 1025), got ${points}`,
-    );
+  requireInteger("Number of frequency points", points, 2);
+  const denominator = options.denominator;
+  if (denominator !== undefined) {
+    requireSamples("Denominator", denominator);
+    if (denominator[0] === 0) throw new RangeError("Denominator a[0] must not be 0, got 0");
   }
-  const folded = new Float64Array(size);
-  for (let n = 0; n < taps.length; n++) folded[n % size]! += taps[n] as number;
-  const { re, im } = realSpectrum(folded, size);
-  const frequencies = new Float64Array(points);
-  for (let k = 0; k < points; k++) frequencies[k] = (k * fs) / size;
-  return { frequencies, re, im };
+  const size = 2 * (points - 1);
+  const { re, im } = foldedSpectrum(taps, size);
+  const bins = points;
+  const out: FrequencyResponse = {
+    frequencies: new Float64Array(bins),
+    re: re.length === bins ? re : re.slice(0, bins),
+    im: im.length === bins ? im : im.slice(0, bins),
+  };
+  for (let k = 0; k < bins; k++) out.frequencies[k] = (k * fs) / size;
+  if (denominator !== undefined && !(denominator.length === 1 && denominator[0] === 1)) {
+    const a = foldedSpectrum(denominator, size);
+    for (let k = 0; k < bins; k++) {
+      const nr = out.re[k]!;
+      const ni = out.im[k]!;
+      const dr = a.re[k]!;
+      const di = a.im[k]!;
+      const d = dr * dr + di * di;
+      out.re[k] = (nr * dr + ni * di) / d;
+      out.im[k] = (ni * dr - nr * di) / d;
+    }
+  }
+  return out;
 }
 
 /**
@@ -208,6 +245,30 @@ export function unwrappedPhase(response: FrequencyResponse): Float64Array {
     }
     out[i] = p + offset;
     previous = p;
+  }
+  return out;
+}
+
+/**
+ * Phase in radians, wrapped to the principal value (−π, π]: φ = atan2(Im H, Re H).
+ *
+ * Source: Oppenheim & Schafer, Discrete-Time Signal Processing, 3rd ed., §5.1.1 (ARG[H]).
+ *
+ * @param response A frequency response.
+ * @returns One phase per frequency, in (−π, π].
+ * @example
+ * ```ts
+ * import { responseAt, wrappedPhase } from "./frequency_response.ts";
+ * // Two-tap average: phase −πf/fs, so −π/4 at fs/4.
+ * const p = wrappedPhase(responseAt([0.5, 0.5], [1], [250], 1000));
+ * if (Math.abs(p[0]! + Math.PI / 4) > 1e-15) throw new Error("−π/4");
+ * ```
+ */
+export function wrappedPhase(response: FrequencyResponse): Float64Array {
+  const out = new Float64Array(response.re.length);
+  for (let i = 0; i < out.length; i++) {
+    const p = Math.atan2(response.im[i] as number, response.re[i] as number);
+    out[i] = p === -Math.PI ? Math.PI : p;
   }
   return out;
 }

@@ -1,0 +1,110 @@
+import { requireInteger, requireSamples } from "../_validate.ts";
+import { inverseInterleaved, realHalfInterleaved } from "./_engine.ts";
+import type { ComplexSamples } from "./complex_fft.ts";
+
+/** Options for {@link realFft}. */
+export interface RealFftOptions {
+  /**
+   * Transform length N ≥ signal length; the signal is zero-padded to it. Any
+   * integer works (non-powers of two go through Bluestein's algorithm).
+   * @default the signal length
+   */
+  size?: number;
+}
+
+/**
+ * DFT of a real signal at the non-negative frequencies:
+ * X[k] = Σ_{n=0}^{N−1} x[n] e^(−j2πkn/N), k = 0 … ⌊N/2⌋ (the other bins are
+ * the complex conjugates X[N−k] = X[k]*). Unscaled.
+ *
+ * Powers of two use fft.js's real radix-4 transform; other lengths use
+ * Bluestein's chirp-z algorithm.
+ *
+ * Source: Oppenheim & Schafer, Discrete-Time Signal Processing, 3rd ed., §8.6
+ * (symmetry of the DFT of a real sequence); Bluestein 1970.
+ *
+ * @param signal Real samples, at least 1.
+ * @param options Transform length (zero-padding).
+ * @returns `{ re, im }` with ⌊N/2⌋ + 1 bins; bin k is at k·fs/N Hz. The DC bin
+ *   (and the Nyquist bin for even N) has an imaginary part of exactly 0.
+ * @throws {RangeError} When size is not an integer or is below the signal length.
+ * @throws {TypeError} When the signal holds a non-finite value.
+ * @example
+ * ```ts
+ * import { realFft } from "./real_fft.ts";
+ * const X = realFft([1, 0, -1, 0, 1, 0]);
+ * // cos(πn/2) sampled 6 times: not periodic in 6, so energy spreads; DC is the plain sum.
+ * if (X.re.length !== 4 || Math.abs(X.re[0]! - 1) > 1e-12) throw new Error("DC = sum");
+ * ```
+ */
+export function realFft(signal: ArrayLike<number>, options: RealFftOptions = {}): ComplexSamples {
+  requireSamples("Signal", signal);
+  const size = options.size ?? signal.length;
+  requireInteger("Transform size", size, signal.length);
+  let input: Float64Array;
+  if (signal instanceof Float64Array && signal.length === size) {
+    input = signal;
+  } else {
+    input = new Float64Array(size);
+    input.set(signal);
+  }
+  const half = realHalfInterleaved(input, size);
+  const bins = Math.floor(size / 2) + 1;
+  const re = new Float64Array(bins);
+  const im = new Float64Array(bins);
+  for (let i = 0; i < bins; i++) {
+    re[i] = half[2 * i]!;
+    im[i] = half[2 * i + 1]!;
+  }
+  return { re, im };
+}
+
+/**
+ * Inverse of {@link realFft}: the real signal of length N whose DFT has the
+ * given non-negative-frequency bins, x[n] = (1/N) Σ_{k=0}^{N−1} X[k] e^(+j2πkn/N)
+ * with X[N−k] = X[k]*. The imaginary parts of the DC bin (and of the Nyquist
+ * bin when N is even) are ignored, as a real signal cannot have them.
+ *
+ * Source: Oppenheim & Schafer, Discrete-Time Signal Processing, 3rd ed., §8.6.
+ *
+ * @param spectrum `{ re, im }` with ⌊N/2⌋ + 1 bins.
+ * @param length Signal length N ≥ 1; must satisfy ⌊N/2⌋ + 1 = number of bins.
+ * @returns N real samples.
+ * @throws {RangeError} When the number of bins does not fit the length.
+ * @throws {TypeError} When the parts differ in length or hold a non-finite value.
+ * @example
+ * ```ts
+ * import { inverseRealFft, realFft } from "./real_fft.ts";
+ * const x = inverseRealFft(realFft([3, 1, 4, 1, 5]), 5);
+ * if (Math.abs(x[4]! - 5) > 1e-12) throw new Error("round trip");
+ * ```
+ */
+export function inverseRealFft(
+  spectrum: { re: ArrayLike<number>; im: ArrayLike<number> },
+  length: number,
+): Float64Array {
+  requireInteger("Signal length", length, 1);
+  requireSamples("Spectrum real part", spectrum.re);
+  requireSamples("Spectrum imaginary part", spectrum.im);
+  const bins = Math.floor(length / 2) + 1;
+  if (spectrum.re.length !== bins || spectrum.im.length !== bins) {
+    throw new RangeError(
+      `A real signal of length ${length} needs ${bins} spectrum bins, got ${spectrum.re.length} real and ${spectrum.im.length} imaginary`,
+    );
+  }
+  const data = new Float64Array(2 * length);
+  for (let k = 0; k < bins; k++) {
+    const re = spectrum.re[k]!;
+    const im = k === 0 || (2 * k === length) ? 0 : spectrum.im[k]!;
+    data[2 * k] = re;
+    data[2 * k + 1] = im;
+    if (k > 0 && 2 * k !== length) {
+      data[2 * (length - k)] = re;
+      data[2 * (length - k) + 1] = -im;
+    }
+  }
+  const full = inverseInterleaved(data, length);
+  const out = new Float64Array(length);
+  for (let i = 0; i < length; i++) out[i] = full[2 * i]!;
+  return out;
+}
