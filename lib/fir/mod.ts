@@ -3,10 +3,18 @@
  *
  * Conventions: `length` is the number of taps N; the filter order is N − 1.
  * Frequencies are in Hz with an explicit sample rate `fs`; a cutoff must lie
- * strictly inside (0, fs/2). Designed taps are symmetric (linear phase) unless
- * a function says otherwise. Windows used for design are the symmetric form.
+ * strictly inside (0, fs/2). Band specifications are lists of
+ * `{ from, to, gain, weight? }` in Hz, increasing and not touching; gains are
+ * linear amplitudes (1 pass, 0 stop), attenuations and ripples are in dB only
+ * where a name says so. Designed taps are symmetric (linear phase) unless a
+ * function says otherwise. Windows used for design are the symmetric form.
  *
  * @module
  */
 export * from "./apply.ts";
+export * from "./types.ts";
 export * from "./windowed_sinc.ts";
+export * from "./kaiser_parameters.ts";
+export * from "./equiripple.ts";
+export * from "./equiripple_length.ts";
+export * from "./band_error.ts";

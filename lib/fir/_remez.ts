@@ -1,0 +1,659 @@
+// The Remez exchange on a dense frequency grid, for linear-phase FIR filters.
+// Private to lib/fir: equiripple.ts validates the input and shapes the result.
+//
+// Frequencies here are normalised (cycles per sample, 0 … 0.5). The filter's
+// amplitude A(f) is written Q(f)·P(f) with P(ω) = Σ_{k<r} α_k cos(kω), and P is
+// fitted to D/Q with weight W·Q (McClellan, Parks and Rabiner 1973). P is a
+// polynomial in x = cos ω, handled in barycentric Lagrange form (Berrut and
+// Trefethen 2004). Differences x_i − x_j are formed from sin²(ω/2) or cos²(ω/2)
+// so that points crowded near ω = 0 or π keep their relative precision.
+
+import type { DesignWarning } from "../types.ts";
+import { kernel } from "../fft/_fftjs.ts";
+import type { FftKernel } from "../fft/_fftjs.ts";
+
+/** What the approximation is of: flat bands, a Hilbert transformer or a differentiator. */
+export type RemezKind = "multiband" | "hilbert" | "differentiator";
+
+export interface RemezBand {
+  /** Normalised band edges, 0 ≤ lo ≤ hi ≤ 0.5. */
+  lo: number;
+  hi: number;
+  /** Flat gain, or the slope g of D(ω) = g·ω for a differentiator. */
+  gain: number;
+  weight: number;
+}
+
+export interface RemezProblem {
+  length: number;
+  bands: RemezBand[];
+  kind: RemezKind;
+  gridDensity: number;
+  maxIterations: number;
+}
+
+export interface RemezSolution {
+  taps: Float64Array;
+  /** Weighted deviation |δ| on the final reference. */
+  deviation: number;
+  /** Normalised frequencies of the final reference (r + 1 of them). */
+  extremalFrequencies: Float64Array;
+  iterations: number;
+  warnings: DesignWarning[];
+}
+
+/** Thrown when the exchange cannot produce a trustworthy filter. */
+export class RemezFailure extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = "ConvergenceError";
+  }
+}
+
+interface Grid {
+  f: Float64Array;
+  /** sin²(ω/2) and cos²(ω/2), ω = 2πf. */
+  s: Float64Array;
+  c: Float64Array;
+  desired: Float64Array;
+  weight: Float64Array;
+  /** Index of the band each grid point belongs to. */
+  band: Int32Array;
+  segments: Segment[];
+  /** Grid step Δ = 0.5/(density·r). */
+  delta: number;
+}
+
+/** A band's run of grid points: `uniform` points first + i·Δ from `start`, then the rest. */
+interface Segment {
+  start: number;
+  uniform: number;
+  first: number;
+}
+
+/** Dense grid: per band lo, lo + Δ, … with the last point moved onto hi (MPR 1973). */
+export function buildGrid(p: RemezProblem, r: number, negative: boolean, odd: boolean): Grid {
+  const delta = 0.5 / (p.gridDensity * r);
+  const f: number[] = [];
+  const bandOf: number[] = [];
+  const segments: Segment[] = [];
+  for (let b = 0; b < p.bands.length; b++) {
+    const band = p.bands[b]!;
+    let first = band.lo;
+    if (b === 0 && negative && first < delta) first = delta;
+    const start = f.length;
+    for (let i = 0;; i++) {
+      f.push(first + i * delta);
+      bandOf.push(b);
+      if (first + (i + 1) * delta > band.hi) {
+        f[f.length - 1] = Math.max(band.hi, f[f.length - 1]!);
+        break;
+      }
+    }
+    // All but the last point of a band lie on first + i·Δ (the chirp-z evaluates those).
+    segments.push({ start, uniform: f.length - start - 1, first });
+  }
+  // Q(f) vanishes at 0.5 for types II and III: keep the grid off it.
+  if (negative === odd && f.length > 0 && f[f.length - 1]! > 0.5 - delta) {
+    f.pop();
+    bandOf.pop();
+  }
+  const n = f.length;
+  const g: Grid = {
+    f: Float64Array.from(f),
+    s: new Float64Array(n),
+    c: new Float64Array(n),
+    desired: new Float64Array(n),
+    weight: new Float64Array(n),
+    band: Int32Array.from(bandOf),
+    segments,
+    delta,
+  };
+  for (let i = 0; i < n; i++) {
+    const fi = g.f[i]!;
+    const band = p.bands[g.band[i]!]!;
+    const sh = Math.sin(Math.PI * fi);
+    const ch = Math.cos(Math.PI * fi);
+    g.s[i] = sh * sh;
+    g.c[i] = ch * ch;
+    let d = band.gain;
+    let w = band.weight;
+    if (p.kind === "differentiator") {
+      // D(ω) = g·ω; relative error weighting W/f where the slope is not ~0.
+      d = band.gain * 2 * Math.PI * fi;
+      if (band.gain * 2 * Math.PI >= 1e-4) w = band.weight / fi;
+    }
+    let q = 1;
+    if (!negative && !odd) q = ch;
+    else if (negative && odd) q = Math.sin(2 * Math.PI * fi);
+    else if (negative && !odd) q = sh;
+    g.desired[i] = d / q;
+    g.weight[i] = w * q;
+  }
+  return g;
+}
+
+/**
+ * Barycentric weights 1/Π_{k≠j}(x_j − x_k), scaled by a common factor so the
+ * largest is 1. Products carry a binary exponent, so no length overflows.
+ */
+function barycentricWeights(s: Float64Array, c: Float64Array): Float64Array {
+  const n = s.length;
+  const logs = new Float64Array(n);
+  const signs = new Float64Array(n);
+  const big = 2 ** 200;
+  const small = 2 ** -200;
+  let lower = 0;
+  while (lower < n && s[lower]! <= 0.5) lower++;
+  for (let j = 0; j < n; j++) {
+    let m = 1;
+    let e = 0;
+    const sj = s[j]!;
+    const cj = c[j]!;
+    // A factor is at most 4 and, for any practical length, far above 2^-100: eight
+    // of them cannot carry the product past the double range between rescalings.
+    for (let k = 0; k < n; k++) {
+      if (k !== j) m *= j < lower && k < lower ? 2 * (s[k]! - sj) : 2 * (cj - c[k]!);
+      if ((k & 7) === 7) {
+        const a = Math.abs(m);
+        if (a > big) {
+          m *= small;
+          e += 200;
+        } else if (a < small) {
+          m *= big;
+          e -= 200;
+        }
+      }
+    }
+    signs[j] = m < 0 ? -1 : 1;
+    logs[j] = -(e + Math.log2(Math.abs(m)));
+  }
+  let top = -Infinity;
+  for (let j = 0; j < n; j++) top = Math.max(top, logs[j]!);
+  const w = new Float64Array(n);
+  for (let j = 0; j < n; j++) w[j] = signs[j]! * 2 ** (logs[j]! - top);
+  return w;
+}
+
+/**
+ * Evaluate the barycentric interpolant (nodes ns/nc, weights bw, values y) at
+ * points ps/pc. Nodes are sorted by frequency, so those with ω ≤ π/2 form a prefix.
+ */
+function interpolate(
+  ns: Float64Array,
+  nc: Float64Array,
+  bw: Float64Array,
+  y: Float64Array,
+  ps: Float64Array,
+  pc: Float64Array,
+  out: Float64Array,
+  skip?: Int32Array,
+): void {
+  const n = ns.length;
+  let lower = 0;
+  while (lower < n && ns[lower]! <= 0.5) lower++;
+  for (let i = 0; i < ps.length; i++) {
+    if (skip !== undefined && skip[i]! >= 0) {
+      out[i] = y[skip[i]!]!;
+      continue;
+    }
+    const si = ps[i]!;
+    const ci = pc[i]!;
+    let num = 0;
+    let den = 0;
+    let hit = -1;
+    if (si <= 0.5) {
+      for (let j = 0; j < lower; j++) {
+        const d = 2 * (ns[j]! - si);
+        if (d === 0) {
+          hit = j;
+          break;
+        }
+        const t = bw[j]! / d;
+        num += t * y[j]!;
+        den += t;
+      }
+      if (hit < 0) {
+        for (let j = lower; j < n; j++) {
+          const d = 2 * (ci - nc[j]!);
+          if (d === 0) {
+            hit = j;
+            break;
+          }
+          const t = bw[j]! / d;
+          num += t * y[j]!;
+          den += t;
+        }
+      }
+    } else {
+      for (let j = 0; j < n; j++) {
+        const d = 2 * (ci - nc[j]!);
+        if (d === 0) {
+          hit = j;
+          break;
+        }
+        const t = bw[j]! / d;
+        num += t * y[j]!;
+        den += t;
+      }
+    }
+    out[i] = hit >= 0 ? y[hit]! : num / den;
+  }
+}
+
+/** Choose r + 1 alternating extrema of the error e (grid order) with |e| ≥ floor. */
+function selectExtrema(e: Float64Array, band: Int32Array, floor: number, want: number): number[] {
+  const n = e.length;
+  const picked: number[] = [];
+  for (let i = 0; i < n; i++) {
+    const v = e[i]!;
+    if (Math.abs(v) < floor) continue;
+    const hasLeft = i > 0 && band[i - 1] === band[i];
+    const hasRight = i < n - 1 && band[i + 1] === band[i];
+    const left = hasLeft ? e[i - 1]! : -Infinity * Math.sign(v);
+    const right = hasRight ? e[i + 1]! : -Infinity * Math.sign(v);
+    const isPeak = v > 0 ? v >= left && v > right : v <= left && v < right;
+    if (isPeak) picked.push(i);
+  }
+  // Merge runs of one sign, keeping the largest magnitude.
+  const merged: number[] = [];
+  for (const i of picked) {
+    const last = merged[merged.length - 1];
+    if (last !== undefined && Math.sign(e[last]!) === Math.sign(e[i]!)) {
+      if (Math.abs(e[i]!) > Math.abs(e[last]!)) merged[merged.length - 1] = i;
+    } else merged.push(i);
+  }
+  // Too many: drop the weaker end while one over, else the weakest extremum
+  // (an interior one takes a neighbour with it to keep the signs alternating).
+  while (merged.length > want) {
+    if (merged.length === want + 1) {
+      if (Math.abs(e[merged[0]!]!) < Math.abs(e[merged[merged.length - 1]!]!)) merged.shift();
+      else merged.pop();
+      continue;
+    }
+    let weakest = 0;
+    for (let k = 1; k < merged.length; k++) {
+      if (Math.abs(e[merged[k]!]!) < Math.abs(e[merged[weakest]!]!)) weakest = k;
+    }
+    if (weakest === 0 || weakest === merged.length - 1) {
+      merged.splice(weakest, 1);
+    } else {
+      const a = merged[weakest - 1]!;
+      const b = merged[weakest + 1]!;
+      const keep = Math.abs(e[a]!) >= Math.abs(e[b]!) ? a : b;
+      merged.splice(weakest - 1, 3, keep);
+    }
+  }
+  return merged;
+}
+
+/** Σ_{k<r} α_k cos(kω) by Clenshaw's recurrence in x = cos ω. */
+export function cosineSum(alpha: Float64Array, r: number, omega: number): number {
+  const x = Math.cos(omega);
+  let b1 = 0;
+  let b2 = 0;
+  for (let k = r - 1; k >= 1; k--) {
+    const b0 = alpha[k]! + 2 * x * b1 - b2;
+    b2 = b1;
+    b1 = b0;
+  }
+  return alpha[0]! + x * b1 - b2;
+}
+
+interface ChirpPlan {
+  segment: Segment;
+  end: number;
+  size: number;
+  fft: FftKernel;
+  /** e^(j2πk·first)·W^(k²/2), k < r, interleaved re/im. */
+  pre: Float64Array;
+  /** W^(i²/2), i < uniform. */
+  post: Float64Array;
+  /** Spectrum of the chirp W^(−m²/2). */
+  chirpSpectrum: Float64Array;
+  work: Float64Array;
+  spectrum: Float64Array;
+}
+
+/**
+ * Evaluates P(ω) = Σ α_k cos kω on the whole grid: each band's evenly spaced
+ * points by Bluestein's chirp-z transform (three FFTs, one precomputed), the
+ * few others by Clenshaw. O(n log n) per evaluation instead of O(n·r).
+ */
+export class GridEvaluator {
+  readonly plans: ChirpPlan[] = [];
+  constructor(readonly grid: Grid, readonly r: number, density: number) {
+    const modulus = 4 * density * r; // W^(m²/2) = e^(j2π·m²/modulus), W = e^(j2πΔ)
+    const chirp = (m: number, sign: number, out: Float64Array, at: number): void => {
+      const q = (m * m) % modulus;
+      const angle = (2 * Math.PI * q) / modulus;
+      out[at] = Math.cos(angle);
+      out[at + 1] = sign * Math.sin(angle);
+    };
+    const segs = grid.segments;
+    for (let b = 0; b < segs.length; b++) {
+      const segment = segs[b]!;
+      const end = b + 1 < segs.length ? segs[b + 1]!.start : grid.f.length;
+      const uniform = Math.min(segment.uniform, end - segment.start);
+      const seg = { ...segment, uniform };
+      let size = 2;
+      while (size < r + uniform - 1) size *= 2;
+      const pre = new Float64Array(2 * r);
+      for (let k = 0; k < r; k++) {
+        chirp(k, 1, pre, 2 * k);
+        const turns = (k * segment.first) % 1;
+        const cr = Math.cos(2 * Math.PI * turns);
+        const ci = Math.sin(2 * Math.PI * turns);
+        const ar = pre[2 * k]!;
+        const ai = pre[2 * k + 1]!;
+        pre[2 * k] = ar * cr - ai * ci;
+        pre[2 * k + 1] = ar * ci + ai * cr;
+      }
+      const post = new Float64Array(2 * Math.max(uniform, 1));
+      for (let i = 0; i < uniform; i++) chirp(i, 1, post, 2 * i);
+      const v = new Float64Array(2 * size);
+      for (let m = 0; m < uniform; m++) chirp(m, -1, v, 2 * m);
+      for (let m = 1; m < r && size - m >= uniform; m++) chirp(m, -1, v, 2 * (size - m));
+      const fft = kernel(size);
+      const chirpSpectrum = new Float64Array(2 * size);
+      if (uniform > 0) fft.transform(chirpSpectrum, v);
+      this.plans.push({
+        segment: seg,
+        end,
+        size,
+        fft,
+        pre,
+        post,
+        chirpSpectrum,
+        work: new Float64Array(2 * size),
+        spectrum: new Float64Array(2 * size),
+      });
+    }
+  }
+
+  evaluate(alpha: Float64Array, out: Float64Array): void {
+    const r = this.r;
+    for (const plan of this.plans) {
+      const { segment, size, pre, post, chirpSpectrum, work, spectrum, fft } = plan;
+      const n = segment.uniform;
+      if (n > 0) {
+        work.fill(0);
+        for (let k = 0; k < r; k++) {
+          const a = alpha[k]!;
+          work[2 * k] = a * pre[2 * k]!;
+          work[2 * k + 1] = a * pre[2 * k + 1]!;
+        }
+        fft.transform(spectrum, work);
+        for (let i = 0; i < size; i++) {
+          const xr = spectrum[2 * i]!;
+          const xi = spectrum[2 * i + 1]!;
+          const vr = chirpSpectrum[2 * i]!;
+          const vi = chirpSpectrum[2 * i + 1]!;
+          spectrum[2 * i] = xr * vr - xi * vi;
+          spectrum[2 * i + 1] = xr * vi + xi * vr;
+        }
+        fft.inverseTransform(work, spectrum);
+        for (let i = 0; i < n; i++) {
+          out[segment.start + i] = work[2 * i]! * post[2 * i]! -
+            work[2 * i + 1]! * post[2 * i + 1]!;
+        }
+      }
+      for (let i = segment.start + n; i < plan.end; i++) {
+        out[i] = cosineSum(alpha, r, 2 * Math.PI * this.grid.f[i]!);
+      }
+    }
+  }
+}
+
+/** Chebyshev points θ_m = π(m + ½)/r as sin²(θ/2), cos²(θ/2), and the cosine table for the DCT. */
+class CosineFit {
+  readonly ts: Float64Array;
+  readonly tc: Float64Array;
+  readonly table: Float64Array;
+  readonly values: Float64Array;
+  constructor(readonly r: number) {
+    this.ts = new Float64Array(r);
+    this.tc = new Float64Array(r);
+    for (let m = 0; m < r; m++) {
+      const half = (Math.PI * (m + 0.5)) / (2 * r);
+      this.ts[m] = Math.sin(half) ** 2;
+      this.tc[m] = Math.cos(half) ** 2;
+    }
+    this.table = new Float64Array(4 * r);
+    for (let i = 0; i < 4 * r; i++) this.table[i] = Math.cos((Math.PI * i) / (2 * r));
+    this.values = new Float64Array(r);
+  }
+
+  /** α_k = (2/r)·Σ_m P(θ_m) cos(kθ_m) (halved for k = 0): exact for degree < r. */
+  coefficients(values: Float64Array, alpha: Float64Array): void {
+    const r = this.r;
+    const period = 4 * r;
+    for (let k = 0; k < r; k++) {
+      let sum = 0;
+      let index = k;
+      const step = 2 * k;
+      for (let m = 0; m < r; m++) {
+        sum += values[m]! * this.table[index]!;
+        index += step;
+        while (index >= period) index -= period;
+      }
+      alpha[k] = ((k === 0 ? 1 : 2) * sum) / r;
+    }
+  }
+}
+
+/** Run the exchange and return the taps. */
+export function remezExchange(p: RemezProblem): RemezSolution {
+  const negative = p.kind !== "multiband";
+  const odd = p.length % 2 === 1;
+  const r = Math.floor(p.length / 2) + (odd && !negative ? 1 : 0);
+  const grid = buildGrid(p, r, negative, odd);
+  const n = grid.f.length;
+  if (n < r + 1) {
+    throw new RemezFailure(
+      `The bands hold too few grid points (${n}) for ${
+        r + 1
+      } extremal frequencies; widen the bands or raise the grid density`,
+    );
+  }
+  const warnings: DesignWarning[] = [];
+  let ext: Int32Array = new Int32Array(r + 1);
+  for (let j = 0; j < r; j++) ext[j] = Math.floor((j * (n - 1)) / r);
+  ext[r] = n - 1;
+
+  const nz = r + 1;
+  const ns = new Float64Array(nz);
+  const nc = new Float64Array(nz);
+  const y = new Float64Array(nz);
+  const values = new Float64Array(n);
+  const error = new Float64Array(n);
+  const skip = new Int32Array(n).fill(-1);
+  let fast = 0;
+  const fit = new CosineFit(r);
+  const evaluator = new GridEvaluator(grid, r, p.gridDensity);
+  const alpha = new Float64Array(r + 2);
+  let delta = 0;
+  let previous = 0;
+  let bw: Float64Array = new Float64Array(0);
+  let iterations = 0;
+  let converged = false;
+  let gap = Infinity;
+  // Rounding noise in the weighted error W·(P − D) is about ε·max|W·D|.
+  let scale = 1e-300;
+  for (let i = 0; i < n; i++) scale = Math.max(scale, Math.abs(grid.weight[i]! * grid.desired[i]!));
+  const noise = 64 * Number.EPSILON * scale;
+
+  const fail = (what: string): never => {
+    if (Math.abs(delta) < 1e-12 * scale) {
+      throw new RemezFailure(
+        `The Remez exchange cannot resolve this specification: ${what}, with the equiripple deviation near ${
+          Math.abs(delta).toPrecision(2)
+        }, at the limit of double precision. The specification is over-met for this many taps: use fewer taps (or a narrower transition band)`,
+      );
+    }
+    throw new RemezFailure(
+      `The Remez exchange failed to converge: ${what}; try a wider transition band, more taps or less extreme weights`,
+    );
+  };
+
+  for (; iterations < p.maxIterations;) {
+    iterations++;
+    for (let j = 0; j < nz; j++) {
+      ns[j] = grid.s[ext[j]!]!;
+      nc[j] = grid.c[ext[j]!]!;
+    }
+    bw = barycentricWeights(ns, nc);
+    let num = 0;
+    let den = 0;
+    for (let j = 0; j < nz; j++) {
+      const l = ext[j]!;
+      num += bw[j]! * grid.desired[l]!;
+      den += ((j % 2 === 0 ? 1 : -1) * bw[j]!) / grid.weight[l]!;
+    }
+    delta = -num / den;
+    for (let j = 0; j < nz; j++) {
+      const l = ext[j]!;
+      y[j] = grid.desired[l]! + ((j % 2 === 0 ? 1 : -1) * delta) / grid.weight[l]!;
+    }
+    const size = Math.abs(delta);
+    if (!Number.isFinite(delta)) fail(`the deviation is not finite at iteration ${iterations}`);
+    if (iterations > 1 && size < previous * (1 - 1e-9)) {
+      // In exact arithmetic |δ| never falls: rounding has taken over.
+      if (gap < 1e-3) {
+        warnings.push({
+          code: "barely-converged",
+          message:
+            `The Remez exchange stopped at iteration ${iterations} when rounding made the deviation fall; the error peaks exceed the equiripple level by ${
+              (gap * 100).toPrecision(2)
+            }%.`,
+        });
+        break;
+      }
+      fail(
+        `at iteration ${iterations} the deviation fell from ${previous.toPrecision(4)} to ${
+          size.toPrecision(4)
+        }`,
+      );
+    }
+    previous = size;
+    interpolate(ns, nc, bw, y, fit.ts, fit.tc, fit.values);
+    fit.coefficients(fit.values, alpha);
+    // The chirp-z path carries an absolute error of about ε·Σ|α_k|; while the
+    // reference is poor (early iterations) that can swamp |δ|, and the exact
+    // barycentric form is used instead.
+    let sumAbs = 0;
+    for (let k = 0; k < r; k++) sumAbs += Math.abs(alpha[k]!);
+    if (1e6 * Number.EPSILON * sumAbs < size) {
+      evaluator.evaluate(alpha, values);
+      // On the reference itself the interpolant is known exactly.
+      for (let j = 0; j < nz; j++) values[ext[j]!] = y[j]!;
+      fast++;
+    } else {
+      skip.fill(-1);
+      for (let j = 0; j < nz; j++) skip[ext[j]!] = j;
+      interpolate(ns, nc, bw, y, grid.s, grid.c, values, skip);
+    }
+    let peak = 0;
+    for (let i = 0; i < n; i++) {
+      const e = grid.weight[i]! * (values[i]! - grid.desired[i]!);
+      error[i] = e;
+      if (Math.abs(e) > peak) peak = Math.abs(e);
+    }
+    gap = (peak - size) / size;
+    const next = selectExtrema(error, grid.band, size * (1 - 1e-9) - noise, nz);
+    if (next.length < nz) {
+      if (gap < 1e-3) {
+        warnings.push({
+          code: "barely-converged",
+          message:
+            `The Remez exchange found too few alternations at iteration ${iterations}; the error peaks exceed the equiripple level by ${
+              (gap * 100).toPrecision(2)
+            }%.`,
+        });
+        break;
+      }
+      fail(
+        `only ${next.length} of ${nz} alternating extrema were found at iteration ${iterations}`,
+      );
+    }
+    let same = true;
+    for (let j = 0; j < nz; j++) {
+      if (next[j] !== ext[j]) {
+        same = false;
+        break;
+      }
+    }
+    if (same || gap <= 1e-12) {
+      converged = true;
+      break;
+    }
+    ext = Int32Array.from(next);
+  }
+  if (!converged && warnings.length === 0) {
+    if (gap < 1e-2) {
+      warnings.push({
+        code: "not-converged",
+        message:
+          `The Remez exchange reached its limit of ${p.maxIterations} iterations; the error peaks exceed the equiripple level by ${
+            (gap * 100).toPrecision(2)
+          }%.`,
+      });
+    } else {
+      fail(
+        `after ${p.maxIterations} iterations the error peaks are still ${
+          (gap * 100).toPrecision(3)
+        }% above the equiripple level`,
+      );
+    }
+  }
+
+  // Cosine coefficients of P from its values at r Chebyshev points (exact for degree < r).
+  interpolate(ns, nc, bw, y, fit.ts, fit.tc, fit.values);
+  fit.coefficients(fit.values, alpha);
+  const taps = tapsFromCosines(alpha, r, p.length, negative, odd);
+  const extremalFrequencies = new Float64Array(nz);
+  for (let j = 0; j < nz; j++) extremalFrequencies[j] = grid.f[ext[j]!]!;
+  return { taps, deviation: Math.abs(delta), extremalFrequencies, iterations, warnings };
+}
+
+/** Impulse response from P's cosine coefficients α (α[r] = α[r+1] = 0). */
+function tapsFromCosines(
+  a: Float64Array,
+  r: number,
+  length: number,
+  negative: boolean,
+  odd: boolean,
+): Float64Array {
+  const h = new Float64Array(length);
+  const at = (k: number): number => (k >= 0 && k < r ? a[k]! : 0);
+  if (!negative && odd) {
+    // Type I: A = Σ α_k cos kω; h[M] = α_0, h[M ± k] = α_k/2.
+    const m = (length - 1) / 2;
+    h[m] = at(0);
+    for (let k = 1; k < r; k++) h[m - k] = h[m + k] = at(k) / 2;
+  } else if (!negative) {
+    // Type II: cos(ω/2)·P = Σ_{k=1}^{r} b_k cos((k − ½)ω).
+    const m = length / 2;
+    for (let k = 1; k <= r; k++) {
+      const b = k === 1 ? at(0) + at(1) / 2 : (at(k - 1) + at(k)) / 2;
+      h[m - k] = h[m - 1 + k] = b / 2;
+    }
+  } else if (odd) {
+    // Type III: sin(ω)·P = Σ_{k=1}^{r} c_k sin(kω).
+    const m = (length - 1) / 2;
+    for (let k = 1; k <= r; k++) {
+      const c = k === 1 ? at(0) - at(2) / 2 : (at(k - 1) - at(k + 1)) / 2;
+      h[m - k] = c / 2;
+      h[m + k] = -c / 2;
+    }
+  } else {
+    // Type IV: sin(ω/2)·P = Σ_{k=1}^{r} d_k sin((k − ½)ω).
+    const m = length / 2;
+    for (let k = 1; k <= r; k++) {
+      const d = k === 1 ? at(0) - at(1) / 2 : (at(k - 1) - at(k)) / 2;
+      h[m - k] = d / 2;
+      h[m - 1 + k] = -d / 2;
+    }
+  }
+  return h;
+}

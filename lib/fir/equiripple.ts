@@ -1,0 +1,169 @@
+import { requireInteger, show } from "../_validate.ts";
+import type { DesignWarning } from "../types.ts";
+import { checkBands } from "./_bands.ts";
+import { remezExchange, RemezFailure } from "./_remez.ts";
+import type { DesignBand } from "./types.ts";
+
+/**
+ * What an equiripple design approximates:
+ * - "multiband": flat gains in each band, symmetric taps (type I for an odd
+ *   length, type II for an even length);
+ * - "hilbert": flat gains with antisymmetric taps (type III odd, type IV even),
+ *   a 90° phase shifter when the gain is 1;
+ * - "differentiator": D(ω) = g·ω in each band (g = the band's `gain`), antisymmetric
+ *   taps, error weighted relative to the wanted gain.
+ */
+export type EquirippleKind = "multiband" | "hilbert" | "differentiator";
+
+/** Specification of an equiripple (Parks–McClellan) design. */
+export interface EquirippleOptions {
+  /** Number of taps N (order N − 1), 3 ≤ N ≤ 65536. */
+  length: number;
+  /** Sample rate in Hz. */
+  fs: number;
+  /** Bands with wanted gain and weight, increasing and not touching. */
+  bands: readonly DesignBand[];
+  /** Kind of approximation. @default "multiband" */
+  kind?: EquirippleKind;
+  /** Dense-grid points per extremal frequency, 4 … 1024. @default 16 */
+  gridDensity?: number;
+  /** Limit on exchange iterations, 1 … 1000. @default 100 */
+  maxIterations?: number;
+}
+
+/** Result of {@link designEquiripple}. */
+export interface EquirippleDesign {
+  /** Taps h[0..N−1]. */
+  taps: Float64Array;
+  /** The weighted equiripple deviation δ (the minimised maximum of W·|A − D|). */
+  deviation: number;
+  /** Peak unweighted deviation per band on the design grid, δ / weight (linear). */
+  bandDeviations: number[];
+  /** Frequencies (Hz) where the final error peaks alternate. */
+  extremalFrequencies: Float64Array;
+  /** Exchange iterations used. */
+  iterations: number;
+  /** Soft trouble: a design that only just converged. */
+  warnings: DesignWarning[];
+}
+
+/** The Remez exchange could not produce a trustworthy filter for this specification. */
+export class ConvergenceError extends Error {
+  /**
+   * @param message What failed and what to change.
+   */
+  constructor(message: string) {
+    super(message);
+    this.name = "ConvergenceError";
+  }
+}
+
+/**
+ * Equiripple linear-phase FIR by the Parks–McClellan algorithm: the Remez
+ * exchange finds the taps that minimise max_f W(f)·|A(f) − D(f)| over the bands,
+ * where A is the real amplitude of the linear-phase response
+ * H(f) = e^(−jπf(N−1)/fs)·A(f) (times j for antisymmetric taps).
+ *
+ * The error alternates in sign at r + 1 extremal frequencies with equal
+ * weighted size δ (the alternation theorem). The approximation is evaluated in
+ * barycentric Lagrange form in x = cos ω, and on the dense grid through the
+ * cosine coefficients by chirp-z transforms; the grid is the one of
+ * McClellan, Parks and Rabiner (density 16 by default).
+ *
+ * Types: symmetric taps with odd N (I) or even N (II, zero forced at fs/2);
+ * antisymmetric taps with odd N (III, zeros at 0 and fs/2) or even N (IV, zero at 0).
+ *
+ * Sources: T. W. Parks and J. H. McClellan, "Chebyshev approximation for
+ * nonrecursive digital filters with linear phase", IEEE Trans. Circuit Theory
+ * 19(2), 1972; J. H. McClellan, T. W. Parks and L. R. Rabiner, "A computer
+ * program for designing optimum FIR linear phase digital filters", IEEE Trans.
+ * Audio Electroacoust. 21(6), 1973; J.-P. Berrut and L. N. Trefethen,
+ * "Barycentric Lagrange interpolation", SIAM Review 46(3), 2004.
+ *
+ * @param options Length, sample rate, bands, kind, grid density, iteration limit.
+ * @returns Taps, achieved deviation per band, extremal frequencies, warnings.
+ * @throws {RangeError} For a length, edge, weight or density out of range, band
+ *   edges that do not increase, or a band the chosen type cannot follow (an even
+ *   length with gain at fs/2; antisymmetric taps with gain at 0 Hz, or at fs/2 for odd N).
+ * @throws {TypeError} When the bands are not an array of band objects.
+ * @throws {ConvergenceError} When the exchange fails (e.g. the specification asks
+ *   for ripple below double precision); the message says what to change.
+ * @example
+ * ```ts
+ * import { designEquiripple } from "./equiripple.ts";
+ * const d = designEquiripple({
+ *   length: 31,
+ *   fs: 8000,
+ *   bands: [{ from: 0, to: 800, gain: 1 }, { from: 1200, to: 4000, gain: 0 }],
+ * });
+ * const dc = d.taps.reduce((a, b) => a + b, 0);
+ * // Equal weights: the passband and stopband deviations are the same δ.
+ * if (Math.abs(dc - 1) > d.deviation * 1.0001 || d.taps[0] !== d.taps[30]) {
+ *   throw new Error("DC within the ripple, symmetric taps");
+ * }
+ * ```
+ */
+export function designEquiripple(options: EquirippleOptions): EquirippleDesign {
+  const { length, fs } = options;
+  const kind = options.kind ?? "multiband";
+  const gridDensity = options.gridDensity ?? 16;
+  const maxIterations = options.maxIterations ?? 100;
+  requireInteger("Number of taps", length, 3, 65536);
+  requireInteger("Grid density", gridDensity, 4, 1024);
+  requireInteger("Maximum iterations", maxIterations, 1, 1000);
+  if (kind !== "multiband" && kind !== "hilbert" && kind !== "differentiator") {
+    throw new TypeError(
+      `Kind must be "multiband", "hilbert" or "differentiator", got ${String(kind)}`,
+    );
+  }
+  const bands = checkBands(options.bands, fs);
+  const nyquist = fs / 2;
+  const odd = length % 2 === 1;
+  const antisymmetric = kind !== "multiband";
+  const first = bands[0]!;
+  const last = bands[bands.length - 1]!;
+  if (!antisymmetric && !odd && last.to === nyquist && last.gain !== 0) {
+    throw new RangeError(
+      `An even number of taps forces a zero at fs/2 (type II), but the band reaching fs/2 = ${
+        show(nyquist)
+      } Hz asks for gain ${show(last.gain)}: use an odd length, got ${length}`,
+    );
+  }
+  if (kind === "hilbert" && first.from === 0 && first.gain !== 0) {
+    throw new RangeError(
+      `Antisymmetric taps (types III and IV) force a zero at 0 Hz, but band 1 starts at 0 Hz with gain ${
+        show(first.gain)
+      }: start the band above 0 Hz`,
+    );
+  }
+  const gainAtNyquist = kind === "differentiator" ? last.gain * Math.PI : last.gain;
+  if (antisymmetric && odd && last.to === nyquist && gainAtNyquist !== 0) {
+    throw new RangeError(
+      `An odd number of antisymmetric taps (type III) forces a zero at fs/2 = ${
+        show(nyquist)
+      } Hz, but the last band reaches it with a non-zero wanted response: use an even length, got ${length}`,
+    );
+  }
+  let solution;
+  try {
+    solution = remezExchange({
+      length,
+      kind,
+      gridDensity,
+      maxIterations,
+      bands: bands.map((b) => ({ lo: b.from / fs, hi: b.to / fs, gain: b.gain, weight: b.weight })),
+    });
+  } catch (error) {
+    if (error instanceof RemezFailure) throw new ConvergenceError(error.message);
+    throw error;
+  }
+  const extremalFrequencies = solution.extremalFrequencies.map((f) => f * fs);
+  return {
+    taps: solution.taps,
+    deviation: solution.deviation,
+    bandDeviations: bands.map((b) => solution.deviation / b.weight),
+    extremalFrequencies,
+    iterations: solution.iterations,
+    warnings: solution.warnings,
+  };
+}
