@@ -16,3 +16,4 @@ export * from "./fir/mod.ts";
 export * from "./verify/mod.ts";
 export * from "./poly/mod.ts";
 export * from "./fixed/mod.ts";
+export * from "./export/mod.ts";
