@@ -12,6 +12,7 @@ export * from "./signal/mod.ts";
 export * from "./fft/mod.ts";
 export * from "./window/mod.ts";
 export * from "./response/mod.ts";
+export * from "./spectral/mod.ts";
 export * from "./fir/mod.ts";
 export * from "./verify/mod.ts";
 export * from "./poly/mod.ts";
