@@ -26,3 +26,9 @@ export interface DesignBand {
 
 /** Frequency-selective responses the single-cutoff design calls accept. */
 export type BandShape = "lowpass" | "highpass" | "bandpass" | "bandstop";
+
+/** Windows the window-method and frequency-sampling designs accept by name. */
+export type DesignWindowName = "rectangular" | "hann" | "hamming" | "blackman";
+
+/** A design window: by name, or a Kaiser window with its shape β (0 ≤ β ≤ 10000). */
+export type DesignWindow = DesignWindowName | { name: "kaiser"; beta: number };
