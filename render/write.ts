@@ -1,0 +1,181 @@
+// Write a report folder: figures (SVG + vega-lite spec), exports, index.html,
+// manifest.json. Built in a hidden folder and swapped in whole, so a run that
+// is killed at any moment leaves the previous report intact.
+import { join } from "node:path";
+import type { ExecutionResult, Exhibit, FigureExhibit } from "../runner/types.ts";
+import { figureToVegaLite } from "./figures.ts";
+import {
+  overallVerdict,
+  type Provenance,
+  reportHtml,
+  type ReportInput,
+  requirementResults,
+  type Verdict,
+  type WrittenFile,
+} from "./report.ts";
+import { vegaLiteToSvg } from "./svg.ts";
+
+/** SHA-256 of text or bytes, as lowercase hex. */
+export async function sha256Hex(data: string | Uint8Array): Promise<string> {
+  const bytes = typeof data === "string" ? new TextEncoder().encode(data) : data;
+  const digest = await crypto.subtle.digest("SHA-256", bytes as Uint8Array<ArrayBuffer>);
+  return Array.from(new Uint8Array(digest), (b) => b.toString(16).padStart(2, "0")).join("");
+}
+
+/** A short file-name stem from a title: lowercase letters, digits and dashes. */
+export function slug(title: string): string {
+  const s = title.toLowerCase().normalize("NFKD").replace(/[^a-z0-9]+/g, "-").replace(
+    /^-+|-+$/g,
+    "",
+  );
+  return s.slice(0, 48) || "figure";
+}
+
+/** What was written, for the command line and machine-readable results. */
+export interface WrittenReport {
+  dir: string;
+  verdict: Verdict;
+  files: WrittenFile[];
+  /** Fingerprint of the report: SHA-256 over every file's path and hash. */
+  fingerprint: string;
+}
+
+/** Everything needed to write one report. */
+export type ReportContent = Omit<ReportInput, "figures" | "exports">;
+
+/**
+ * Render and write the report for one run into `<outDir>/<name>/`.
+ */
+export async function writeReport(
+  outDir: string,
+  name: string,
+  content: ReportContent,
+): Promise<WrittenReport> {
+  await Deno.mkdir(outDir, { recursive: true });
+  const finalDir = join(outDir, name);
+  await recoverInterruptedSwap(outDir, name);
+  const stage = join(outDir, `.${name}.partial-${crypto.randomUUID().slice(0, 8)}`);
+  try {
+    await Deno.mkdir(join(stage, "figures"), { recursive: true });
+    const files: WrittenFile[] = [];
+    const write = async (path: string, data: string, description?: string) => {
+      await Deno.writeTextFile(join(stage, path), data);
+      const file: WrittenFile = { path, sha256: await sha256Hex(data) };
+      if (description !== undefined) file.description = description;
+      files.push(file);
+      return file;
+    };
+
+    const figures = new Map<Exhibit, WrittenFile>();
+    let count = 0;
+    for (const block of content.execution.blocks) {
+      for (const exhibit of block.exhibits) {
+        if (exhibit.type !== "figure") continue;
+        count++;
+        const stem = `figures/${String(count).padStart(2, "0")}-${slug(exhibit.title)}`;
+        const spec = figureToVegaLite(exhibit as FigureExhibit);
+        await write(`${stem}.vl.json`, JSON.stringify(spec, null, 1) + "\n");
+        figures.set(exhibit, await write(`${stem}.svg`, await vegaLiteToSvg(spec), exhibit.title));
+      }
+    }
+
+    const exports: WrittenFile[] = [];
+    const used = new Set<string>();
+    for (const block of content.execution.blocks) {
+      for (const exhibit of block.exhibits) {
+        if (exhibit.type !== "export") continue;
+        if (used.size === 0) await Deno.mkdir(join(stage, "exports"));
+        let fileName = exhibit.fileName;
+        for (let k = 2; used.has(fileName); k++) fileName = `${k}-${exhibit.fileName}`;
+        used.add(fileName);
+        exports.push(await write(`exports/${fileName}`, exhibit.content, exhibit.description));
+      }
+    }
+
+    const html = reportHtml({ ...content, figures, exports });
+    await write("index.html", html);
+    const verdict = overallVerdict(content.execution);
+    const fingerprint = await sha256Hex(files.map((f) => `${f.path} ${f.sha256}\n`).join(""));
+    const manifest = manifestOf(name, content, verdict, files, fingerprint);
+    await Deno.writeTextFile(
+      join(stage, "manifest.json"),
+      JSON.stringify(manifest, null, 2) + "\n",
+    );
+
+    // Swap in: move the old report aside, move the new one in, drop the old one.
+    const old = join(outDir, `.${name}.old`);
+    await Deno.remove(old, { recursive: true }).catch(() => {});
+    const hadOld = await exists(finalDir);
+    if (hadOld) await Deno.rename(finalDir, old);
+    await Deno.rename(stage, finalDir);
+    if (hadOld) await Deno.remove(old, { recursive: true });
+    return { dir: finalDir, verdict, files, fingerprint };
+  } catch (error) {
+    await Deno.remove(stage, { recursive: true }).catch(() => {});
+    throw error;
+  }
+}
+
+/** If a previous run died between the two renames, put the old report back. */
+async function recoverInterruptedSwap(outDir: string, name: string): Promise<void> {
+  const old = join(outDir, `.${name}.old`);
+  if (!(await exists(join(outDir, name))) && (await exists(old))) {
+    await Deno.rename(old, join(outDir, name));
+  }
+  for await (const entry of Deno.readDir(outDir)) {
+    if (entry.name.startsWith(`.${name}.partial-`)) {
+      await Deno.remove(join(outDir, entry.name), { recursive: true }).catch(() => {});
+    }
+  }
+}
+
+async function exists(path: string): Promise<boolean> {
+  try {
+    await Deno.lstat(path);
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+/** Machine-readable results kept beside the report (no timings: it must be reproducible). */
+export interface Manifest {
+  worksheet: string;
+  name: string;
+  title: string;
+  document: string;
+  revision: string;
+  verdict: Verdict;
+  outcome: ExecutionResult["outcome"];
+  problem?: ExecutionResult["problem"];
+  requirements: ReturnType<typeof requirementResults>;
+  params: ReportContent["params"];
+  provenance: Provenance;
+  files: WrittenFile[];
+  fingerprint: string;
+}
+
+function manifestOf(
+  name: string,
+  content: ReportContent,
+  verdict: Verdict,
+  files: WrittenFile[],
+  fingerprint: string,
+): Manifest {
+  const m: Manifest = {
+    worksheet: content.provenance.worksheetPath,
+    name,
+    title: content.worksheet.meta.title,
+    document: content.worksheet.meta.document,
+    revision: content.worksheet.meta.revision,
+    verdict,
+    outcome: content.execution.outcome,
+    requirements: requirementResults(content.execution),
+    params: content.params,
+    provenance: content.provenance,
+    files,
+    fingerprint,
+  };
+  if (content.execution.problem) m.problem = content.execution.problem;
+  return m;
+}

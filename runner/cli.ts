@@ -1,0 +1,375 @@
+// The command line: tapsheet run | check | new | verify | help.
+import { basename, dirname, join, resolve } from "node:path";
+import { parse as parseYaml } from "yaml";
+import { assembleWorksheet } from "./assemble.ts";
+import { projectRoot } from "./execute.ts";
+import { messages } from "./messages.ts";
+import { ParamError } from "./params.ts";
+import { parseWorksheet, WorksheetError } from "./parse.ts";
+import { type RunOptions, type RunSummary, runWorksheet } from "./run.ts";
+
+/** Exit codes, documented in `tapsheet run --help`. */
+export const exitCodes = { met: 0, notMet: 1, failed: 2 } as const;
+
+class UsageError extends Error {}
+
+const colour = !Deno.noColor && Deno.stdout.isTerminal();
+const paint = (code: string, text: string) => (colour ? `\x1b[${code}m${text}\x1b[0m` : text);
+
+/** Expand folders into their *.md files (not recursive), keeping the given order. */
+async function collect(paths: string[]): Promise<string[]> {
+  if (paths.length === 0) throw new UsageError(messages.cli.noWorksheets);
+  const out: string[] = [];
+  for (const path of paths) {
+    let info: Deno.FileInfo;
+    try {
+      info = await Deno.stat(path);
+    } catch {
+      throw new UsageError(messages.cli.notFound(path));
+    }
+    if (info.isDirectory) {
+      const names: string[] = [];
+      for await (const e of Deno.readDir(path)) {
+        if (e.isFile && e.name.endsWith(".md") && e.name.toLowerCase() !== "readme.md") {
+          names.push(e.name);
+        }
+      }
+      out.push(...names.sort().map((n) => join(path, n)));
+    } else out.push(path);
+  }
+  return out;
+}
+
+interface Parsed {
+  positional: string[];
+  options: Map<string, string[]>;
+}
+
+function parseArgs(args: string[], valued: string[], flags: string[]): Parsed {
+  const positional: string[] = [];
+  const options = new Map<string, string[]>();
+  for (let i = 0; i < args.length; i++) {
+    const arg = args[i]!;
+    if (!arg.startsWith("--")) {
+      positional.push(arg);
+      continue;
+    }
+    const [name, inline] = arg.includes("=") && !arg.startsWith("--set=")
+      ? [arg.slice(0, arg.indexOf("=")), arg.slice(arg.indexOf("=") + 1)]
+      : arg.startsWith("--set=")
+      ? ["--set", arg.slice(6)]
+      : [arg, undefined];
+    if (flags.includes(name)) {
+      options.set(name, ["true"]);
+    } else if (valued.includes(name)) {
+      const value = inline ?? args[++i];
+      if (value === undefined) throw new UsageError(messages.cli.missingValue(name));
+      options.set(name, [...(options.get(name) ?? []), value]);
+    } else {
+      throw new UsageError(messages.cli.unknownOption(name));
+    }
+  }
+  return { positional, options };
+}
+
+function positiveNumber(name: string, text: string | undefined): number | undefined {
+  if (text === undefined) return undefined;
+  const v = Number(text);
+  if (!(v > 0) || !Number.isFinite(v)) throw new UsageError(messages.cli.badNumber(name, text));
+  return v;
+}
+
+function formatDuration(ms: number): string {
+  return ms < 1000 ? `${Math.round(ms)} ms` : `${(ms / 1000).toFixed(1)} s`;
+}
+
+function verdictLabel(s: RunSummary): string {
+  switch (s.report.verdict) {
+    case "met":
+      return paint("32", "met");
+    case "not met":
+      return paint("31", "not met");
+    case "incomplete":
+      return paint("33", "failed");
+    default:
+      return "no requirements";
+  }
+}
+
+async function commandRun(args: string[]): Promise<number> {
+  const { positional, options } = parseArgs(
+    args,
+    ["--out", "--set", "--params", "--timeout", "--memory", "--date", "--json"],
+    ["--help", "--pdf", "--force"],
+  );
+  if (options.has("--help")) {
+    console.log(messages.cli.runUsage);
+    return 0;
+  }
+  const date = options.get("--date")?.at(-1);
+  if (date !== undefined && !/^\d{4}-\d{2}-\d{2}$/.test(date)) {
+    throw new UsageError(messages.cli.badDate(date));
+  }
+  const paramsFile = options.get("--params")?.at(-1);
+  let paramsFromFile: Record<string, unknown> = {};
+  if (paramsFile !== undefined) {
+    const parsed = parseYaml(await Deno.readTextFile(paramsFile));
+    if (parsed === null || typeof parsed !== "object" || Array.isArray(parsed)) {
+      throw new UsageError(`Parameters file ${paramsFile} must hold name: value pairs`);
+    }
+    paramsFromFile = parsed as Record<string, unknown>;
+  }
+  const runOptions: RunOptions = {
+    outDir: options.get("--out")?.at(-1) ?? "reports",
+    settings: options.get("--set") ?? [],
+    paramsFromFile,
+  };
+  const timeout = positiveNumber("--timeout", options.get("--timeout")?.at(-1));
+  if (timeout !== undefined) runOptions.timeoutSeconds = timeout;
+  const memory = positiveNumber("--memory", options.get("--memory")?.at(-1));
+  if (memory !== undefined) runOptions.memoryMb = memory;
+  if (date !== undefined) runOptions.date = date;
+
+  const files = await collect(positional);
+  const summaries: RunSummary[] = [];
+  for (const file of files) {
+    const summary = await runWorksheet(file, runOptions);
+    summaries.push(summary);
+    const p = summary.execution.problem;
+    console.log(
+      `${verdictLabel(summary)}  ${file}  ${summary.met}/${summary.checked} requirements met  ${
+        formatDuration(summary.durationMs)
+      }  → ${join(summary.report.dir, "index.html")}`,
+    );
+    if (p) {
+      console.error(`  ${p.path}:${p.line}${p.column ? `:${p.column}` : ""}: ${p.message}`);
+      if (p.excerpt) console.error(`  ${p.line} | ${p.excerpt}`);
+    }
+  }
+  if (summaries.length > 1) printSummary(summaries);
+  const json = options.get("--json")?.at(-1);
+  if (json !== undefined) {
+    const results = JSON.stringify(
+      summaries.map((s) => ({
+        worksheet: s.path,
+        report: join(s.report.dir, "index.html"),
+        verdict: s.report.verdict,
+        outcome: s.execution.outcome,
+        requirementsMet: s.met,
+        requirementsChecked: s.checked,
+        durationMs: Math.round(s.durationMs),
+        fingerprint: s.report.fingerprint,
+        problem: s.execution.problem ?? null,
+      })),
+      null,
+      2,
+    );
+    if (json === "-") console.log(results);
+    else await Deno.writeTextFile(json, results + "\n");
+  }
+  if (summaries.some((s) => s.report.verdict === "incomplete")) return exitCodes.failed;
+  if (summaries.some((s) => s.report.verdict === "not met")) return exitCodes.notMet;
+  return exitCodes.met;
+}
+
+function printSummary(summaries: RunSummary[]): void {
+  const rows = summaries.map((s) => [
+    s.name,
+    s.report.verdict === "incomplete" ? "failed" : s.report.verdict,
+    `${s.met}/${s.checked}`,
+    formatDuration(s.durationMs),
+  ]);
+  const head = ["Worksheet", "Verdict", "Met", "Time"];
+  const widths = head.map((h, i) => Math.max(h.length, ...rows.map((r) => r[i]!.length)));
+  const line = (r: string[]) => r.map((c, i) => c.padEnd(widths[i]!)).join("  ").trimEnd();
+  console.log("\n" + line(head));
+  console.log(widths.map((w) => "-".repeat(w)).join("  "));
+  for (const r of rows) console.log(line(r));
+}
+
+/** Type-check worksheets without running them. */
+async function commandCheck(args: string[]): Promise<number> {
+  const { positional, options } = parseArgs(args, [], ["--help"]);
+  if (options.has("--help")) {
+    console.log(
+      "tapsheet check <worksheet.md or folder>...\n\nType-checks each worksheet's code without running it. Exit code 0 when all pass, 2 otherwise.",
+    );
+    return 0;
+  }
+  let failed = 0;
+  for (const file of await collect(positional)) {
+    const problems: string[] = [];
+    try {
+      const ws = parseWorksheet(file, await Deno.readTextFile(file));
+      const assembly = assembleWorksheet(ws);
+      for (const p of assembly.problems) {
+        problems.push(
+          `${p.path}:${p.line}:${p.column ?? 1}: ${p.message}\n  ${p.line} | ${p.excerpt ?? ""}`,
+        );
+      }
+      if (problems.length === 0) {
+        problems.push(...(await typeCheck(file, ws.source, assembly.module)));
+      }
+    } catch (error) {
+      if (!(error instanceof WorksheetError)) throw error;
+      const p = error.problem;
+      problems.push(`${p.path}:${p.line}: ${p.message}`);
+    }
+    if (problems.length === 0) console.log(`${paint("32", "ok")}  ${file}`);
+    else {
+      failed++;
+      console.log(`${paint("31", "error")}  ${file}`);
+      for (const p of problems) console.error(`  ${p}`);
+    }
+  }
+  return failed === 0 ? 0 : exitCodes.failed;
+}
+
+async function typeCheck(file: string, source: string, module: string): Promise<string[]> {
+  const dir = await Deno.makeTempDir({ prefix: "tapsheet-check-" });
+  const path = join(dir, basename(file).replace(/\.md$/i, "") + ".ts");
+  try {
+    await Deno.writeTextFile(path, module);
+    const out = await new Deno.Command(Deno.execPath(), {
+      args: ["check", "--quiet", `--config=${join(projectRoot, "deno.json")}`, path],
+      env: { NO_COLOR: "1", RUST_BACKTRACE: "0" },
+      stdout: "piped",
+      stderr: "piped",
+    }).output();
+    if (out.success) return [];
+    const text = new TextDecoder().decode(out.stderr);
+    const lines = source.split("\n");
+    const problems: string[] = [];
+    const re = /(TS\d+) \[ERROR\]: ([^\n]*)[\s\S]*?at file:\/\/\S+?:(\d+):(\d+)/g;
+    for (let m = re.exec(text); m !== null; m = re.exec(text)) {
+      const line = Number(m[3]);
+      problems.push(
+        `${file}:${line}:${m[4]}: ${m[2]} (${m[1]})\n  ${line} | ${lines[line - 1] ?? ""}`,
+      );
+    }
+    return problems.length > 0 ? problems : [text.trim()];
+  } finally {
+    await Deno.remove(dir, { recursive: true }).catch(() => {});
+  }
+}
+
+/** Start a worksheet from a template. */
+async function commandNew(args: string[]): Promise<number> {
+  const { positional, options } = parseArgs(args, [], ["--help", "--force"]);
+  const templates = join(projectRoot, "worksheets", "templates");
+  const available: string[] = [];
+  try {
+    for await (const e of Deno.readDir(templates)) {
+      if (e.name.endsWith(".md")) available.push(e.name.replace(/\.md$/, ""));
+    }
+  } catch {
+    // no templates folder
+  }
+  available.sort();
+  if (options.has("--help") || positional.length !== 2) {
+    console.log(
+      `tapsheet new <template> <file.md>\n\nCopies a template worksheet to a new file to edit.\nTemplates: ${
+        available.join(", ") || "none"
+      }`,
+    );
+    return options.has("--help") ? 0 : exitCodes.failed;
+  }
+  const [template, target] = positional as [string, string];
+  if (!available.includes(template)) {
+    throw new UsageError(`No template '${template}'. Templates: ${available.join(", ")}`);
+  }
+  if (!options.has("--force")) {
+    try {
+      await Deno.stat(target);
+      throw new UsageError(`${target} exists already; pass --force to overwrite it`);
+    } catch (e) {
+      if (e instanceof UsageError) throw e;
+    }
+  }
+  await Deno.mkdir(dirname(resolve(target)), { recursive: true });
+  await Deno.copyFile(join(templates, `${template}.md`), target);
+  console.log(
+    `Wrote ${target} from template '${template}'. Edit its front matter and prose, then:\n  deno task tapsheet run ${target}`,
+  );
+  return 0;
+}
+
+/** Re-run a worksheet and compare with the fingerprint of its existing report. */
+async function commandVerify(args: string[]): Promise<number> {
+  const { positional, options } = parseArgs(args, ["--out"], ["--help"]);
+  if (options.has("--help") || positional.length !== 1) {
+    console.log(
+      "tapsheet verify <worksheet.md> [--out DIR]\n\nRe-runs the worksheet with the parameters and date recorded in its report and says whether the new report's fingerprint matches. Exit code 0 when it matches, 1 when it does not, 2 on error.",
+    );
+    return options.has("--help") ? 0 : exitCodes.failed;
+  }
+  const file = positional[0]!;
+  const outDir = options.get("--out")?.at(-1) ?? "reports";
+  const name = basename(file).replace(/\.md$/i, "");
+  const manifestPath = join(outDir, name, "manifest.json");
+  let manifest: {
+    fingerprint: string;
+    params: Record<string, unknown>;
+    provenance: { date: string };
+  };
+  try {
+    manifest = JSON.parse(await Deno.readTextFile(manifestPath));
+  } catch {
+    throw new UsageError(`No report to verify: ${manifestPath} is missing or unreadable`);
+  }
+  const scratch = await Deno.makeTempDir({ prefix: "tapsheet-verify-" });
+  try {
+    const summary = await runWorksheet(file, {
+      outDir: scratch,
+      paramsFromFile: manifest.params,
+      date: manifest.provenance.date,
+    });
+    const same = summary.report.fingerprint === manifest.fingerprint;
+    console.log(
+      same
+        ? `${paint("32", "matches")}  ${file}: the report in ${
+          join(outDir, name)
+        } is what this worksheet produces`
+        : `${paint("31", "differs")}  ${file}: re-running gives a different report than ${
+          join(outDir, name)
+        }`,
+    );
+    return same ? 0 : exitCodes.notMet;
+  } finally {
+    await Deno.remove(scratch, { recursive: true }).catch(() => {});
+  }
+}
+
+/** Entry point; returns the exit code. */
+export async function main(args: string[]): Promise<number> {
+  const [command, ...rest] = args;
+  try {
+    switch (command) {
+      case "run":
+        return await commandRun(rest);
+      case "check":
+        return await commandCheck(rest);
+      case "new":
+        return await commandNew(rest);
+      case "verify":
+        return await commandVerify(rest);
+      case undefined:
+      case "help":
+      case "--help":
+      case "-h":
+        if (rest[0] === "run") console.log(messages.cli.runUsage);
+        else console.log(messages.cli.usage);
+        return command === undefined ? exitCodes.failed : 0;
+      default:
+        throw new UsageError(messages.cli.unknownCommand(command));
+    }
+  } catch (error) {
+    if (error instanceof UsageError || error instanceof ParamError) {
+      console.error(`tapsheet: ${error.message}`);
+      return exitCodes.failed;
+    }
+    throw error;
+  }
+}
+
+if (import.meta.main) Deno.exit(await main(Deno.args));

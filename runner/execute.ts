@@ -1,0 +1,272 @@
+// Stage 3: run the assembled module in a sandboxed child Deno process.
+import { basename, dirname, join, resolve } from "node:path";
+import { fileURLToPath, pathToFileURL } from "node:url";
+import { assembleWorksheet } from "./assemble.ts";
+import type { HarnessInput, HarnessMessage } from "./harness.ts";
+import { messages } from "./messages.ts";
+import type {
+  BlockResult,
+  CodePart,
+  ExecutionResult,
+  Exhibit,
+  ParamValue,
+  RunOutcome,
+  SourceProblem,
+  Worksheet,
+} from "./types.ts";
+
+/** Limits of one worksheet run. */
+export interface ExecuteOptions {
+  /** Wall-clock limit in seconds. @default 60 */
+  timeoutSeconds?: number;
+  /** Memory limit in MB: the JavaScript heap cap and, plus a margin for the runtime, the resident size. @default 1024 */
+  memoryMb?: number;
+  /** Cap on everything the child prints, in MB. @default 16 */
+  outputMb?: number;
+}
+
+/** Root of the tapsheet project (the folder holding deno.json). */
+export const projectRoot: string = resolve(dirname(fileURLToPath(import.meta.url)), "..");
+
+/** Memory the Deno runtime itself needs on top of the worksheet's heap, in MB. */
+const runtimeMarginMb = 256;
+
+/**
+ * Execute a worksheet with the given parameters. Never throws for problems
+ * in the worksheet: they come back as the result's outcome and problem.
+ */
+export async function executeWorksheet(
+  worksheet: Worksheet,
+  params: Record<string, ParamValue>,
+  options: ExecuteOptions = {},
+): Promise<ExecutionResult> {
+  const timeoutSeconds = options.timeoutSeconds ?? 60;
+  const memoryMb = options.memoryMb ?? 1024;
+  const outputLimit = (options.outputMb ?? 16) * 1024 * 1024;
+  const codeParts = worksheet.parts.filter((p): p is CodePart => p.kind === "code");
+  const blocks: BlockResult[] = codeParts.map((p) => ({
+    index: p.index,
+    status: "not run",
+    exhibits: [],
+  }));
+  const started = performance.now();
+
+  const assembly = assembleWorksheet(worksheet);
+  if (assembly.problems.length > 0) {
+    return {
+      outcome: "rejected",
+      blocks,
+      problem: assembly.problems[0]!,
+      durationMs: performance.now() - started,
+    };
+  }
+
+  const worksheetPath = resolve(worksheet.path);
+  const tempDir = await Deno.makeTempDir({ prefix: "tapsheet-" });
+  const modulePath = join(tempDir, basename(worksheetPath).replace(/\.md$/i, "") + ".ts");
+  const moduleUrl = pathToFileURL(modulePath).href;
+  try {
+    await Deno.writeTextFile(modulePath, assembly.module);
+    const child = new Deno.Command(Deno.execPath(), {
+      args: [
+        "run",
+        "--no-prompt",
+        "--no-remote",
+        `--config=${join(projectRoot, "deno.json")}`,
+        `--allow-read=${join(projectRoot, "lib")},${dirname(worksheetPath)},${tempDir}`,
+        `--v8-flags=--max-old-space-size=${memoryMb},--disallow-code-generation-from-strings`,
+        join(projectRoot, "runner", "harness.ts"),
+      ],
+      cwd: dirname(worksheetPath),
+      clearEnv: true,
+      env: childEnvironment(),
+      stdin: "piped",
+      stdout: "piped",
+      stderr: "piped",
+    }).spawn();
+
+    const nonce = `\u0001${crypto.randomUUID()}\u0002`;
+    const input: HarnessInput = { moduleUrl, params, nonce };
+    const writer = child.stdin.getWriter();
+    await writer.write(new TextEncoder().encode(JSON.stringify(input)));
+    await writer.close();
+
+    let stopped: RunOutcome | undefined;
+    const stop = (why: RunOutcome) => {
+      if (stopped !== undefined) return;
+      stopped = why;
+      try {
+        child.kill("SIGKILL");
+      } catch {
+        // already gone
+      }
+    };
+    const timer = setTimeout(() => stop("timeout"), timeoutSeconds * 1000);
+    const watchdog = setInterval(() => {
+      if (residentMb(child.pid) > memoryMb + runtimeMarginMb) stop("memory limit");
+    }, 50);
+
+    let printed = 0;
+    let current = -1;
+    let error: Extract<HarnessMessage, { kind: "error" }> | undefined;
+    let done = false;
+    const blockAt = (index: number) => blocks[index];
+    const addExhibit = (index: number, exhibit: Exhibit) => {
+      const block = blockAt(index) ?? blockAt(0);
+      if (block) block.exhibits.push(exhibit);
+    };
+    const onLine = (line: string) => {
+      if (!line.startsWith(nonce)) {
+        if (line.trim() !== "") addExhibit(current, { type: "output", text: line });
+        return;
+      }
+      const message = JSON.parse(line.slice(nonce.length)) as HarnessMessage;
+      switch (message.kind) {
+        case "block":
+          current = message.index;
+          if (blockAt(current)) blockAt(current)!.status = "ok";
+          break;
+        case "exhibit":
+          addExhibit(message.block, message.exhibit);
+          break;
+        case "error":
+          error = message;
+          break;
+        case "done":
+          done = true;
+          break;
+      }
+    };
+    const readLines = async (stream: ReadableStream<Uint8Array>, handle: (l: string) => void) => {
+      const decoder = new TextDecoder();
+      let pending = "";
+      for await (const chunk of stream) {
+        printed += chunk.length;
+        if (printed > outputLimit) {
+          stop("output limit");
+          continue;
+        }
+        pending += decoder.decode(chunk, { stream: true });
+        const lines = pending.split("\n");
+        pending = lines.pop()!;
+        for (const l of lines) handle(l);
+      }
+      if (pending !== "") handle(pending);
+    };
+    const stderrLines: string[] = [];
+    const [status] = await Promise.all([
+      child.status,
+      readLines(child.stdout, onLine),
+      readLines(child.stderr, (l) => {
+        if (stderrLines.length < 200) stderrLines.push(l);
+      }),
+    ]);
+    clearTimeout(timer);
+    clearInterval(watchdog);
+
+    const durationMs = performance.now() - started;
+    const locate = (text: string, blockIndex: number): SourceProblem =>
+      locateProblem(worksheet, codeParts, moduleUrl, text, blockIndex);
+    let outcome: RunOutcome;
+    let problem: SourceProblem | undefined;
+    if (stopped !== undefined) {
+      outcome = stopped;
+      const message = stopped === "timeout"
+        ? messages.execute.timeout(timeoutSeconds)
+        : stopped === "memory limit"
+        ? messages.execute.memory(memoryMb)
+        : messages.execute.output(options.outputMb ?? 16);
+      problem = { ...locate("", current), message };
+    } else if (error !== undefined) {
+      outcome = "error";
+      const where = locate(`${error.message}\n${error.stack}`, error.block);
+      const text = error.name === "NotCapable"
+        ? messages.execute.notCapable(error.message)
+        : `${error.name}: ${error.message.replaceAll(moduleUrl, worksheet.path)}`;
+      problem = { ...where, message: text };
+    } else if (
+      status.code === 133 || /heap out of memory|Fatal JavaScript/i.test(stderrLines.join("\n"))
+    ) {
+      outcome = "memory limit";
+      problem = { ...locate("", current), message: messages.execute.heap(memoryMb) };
+    } else if (!done) {
+      outcome = "error";
+      const detail = stderrLines.join("\n").replaceAll(moduleUrl, worksheet.path).trim();
+      problem = {
+        ...locate(detail, current),
+        message: detail
+          ? detail.split("\n").slice(0, 6).join("\n")
+          : messages.execute.crashed(status.code),
+      };
+    } else {
+      outcome = "completed";
+    }
+    if (problem !== undefined) {
+      const failing = codeParts.find((p) =>
+        p.startLine <= problem!.line && problem!.line <= p.endLine
+      ) ??
+        codeParts[Math.max(0, current)];
+      for (const b of blocks) {
+        if (failing && b.index === failing.index) b.status = "failed";
+        else if (failing && b.index > failing.index) {
+          b.status = "not run";
+        }
+      }
+    }
+    const result: ExecutionResult = { outcome, blocks, durationMs };
+    if (problem !== undefined) result.problem = problem;
+    return result;
+  } finally {
+    await Deno.remove(tempDir, { recursive: true }).catch(() => {});
+  }
+}
+
+/** The few variables the child needs to find Deno's cache; nothing else passes. */
+function childEnvironment(): Record<string, string> {
+  const env: Record<string, string> = { NO_COLOR: "1" };
+  for (const name of ["HOME", "DENO_DIR", "XDG_CACHE_HOME", "PATH"]) {
+    const value = Deno.env.get(name);
+    if (value !== undefined) env[name] = value;
+  }
+  return env;
+}
+
+/** Resident set size of a process in MB, from /proc; 0 where unavailable. */
+function residentMb(pid: number): number {
+  try {
+    const status = Deno.readTextFileSync(`/proc/${pid}/status`);
+    const m = /VmRSS:\s+(\d+)\s+kB/.exec(status);
+    return m ? Number(m[1]) / 1024 : 0;
+  } catch {
+    return 0;
+  }
+}
+
+/**
+ * Find the worksheet line of a failure: the first `module:line:col` in the
+ * text, else the fence of the block that was running.
+ */
+function locateProblem(
+  worksheet: Worksheet,
+  codeParts: CodePart[],
+  moduleUrl: string,
+  text: string,
+  blockIndex: number,
+): SourceProblem {
+  const lines = worksheet.source.split("\n");
+  const escaped = moduleUrl.replace(/[.*+?^${}()|[\]\\]/g, "\\$&");
+  const m = new RegExp(`${escaped}:(\\d+):(\\d+)`).exec(text);
+  if (m) {
+    const line = Number(m[1]);
+    return {
+      path: worksheet.path,
+      line,
+      column: Number(m[2]),
+      message: "",
+      excerpt: lines[line - 1] ?? "",
+    };
+  }
+  const part = codeParts[blockIndex] ?? codeParts[0];
+  const line = part ? part.fenceLine : 1;
+  return { path: worksheet.path, line, message: "", excerpt: lines[line - 1] ?? "" };
+}

@@ -1,0 +1,99 @@
+// Every message the runner shows a user, in one place.
+
+export const messages = {
+  parse: {
+    noFrontMatter:
+      "A worksheet must start with front matter: a line '---', YAML with at least 'title:', then '---'",
+    unclosedFrontMatter: "Front matter starts on line 1 but has no closing '---' line",
+    badYaml: (detail: string) => `Front matter is not valid YAML: ${detail}`,
+    frontMatterNotMapping: "Front matter must be a YAML mapping (name: value lines)",
+    missingField: (key: string) => `Front matter must have '${key}:'`,
+    fieldNotText: (key: string) => `Front matter '${key}' must be text or a number`,
+    signoffShape: "'signoff' must be a list of roles, each a text or { role: …, name: … }",
+    paramsShape: "'params' must be a mapping of parameter names to values",
+    paramName: (name: string) =>
+      `Parameter name '${name}' must start with a letter or '_' and hold only letters, digits and '_'`,
+    paramDeclaration: (name: string) =>
+      `Parameter '${name}' is a mapping, so it must declare 'value:' (and may declare min, max, unit, description)`,
+    paramRule: (name: string, key: string) => `Parameter '${name}': '${key}' must be a number`,
+    paramType: (name: string, found: string) =>
+      `Parameter '${name}' must be a number, text, true/false or a list of numbers, got ${found}`,
+    unclosedFence: "This ```ts block is never closed: add a closing ``` line",
+  },
+  assemble: {
+    forbiddenImport: (specifier: string) =>
+      `Worksheets may import only "tapsheet" and "tapsheet/sheet", not "${specifier}"`,
+    dynamicImport:
+      'Worksheets may not use import(): import "tapsheet" or "tapsheet/sheet" at the top of a block',
+    forbiddenName: (name: string) => `Worksheets may not use '${name}'`,
+  },
+  params: {
+    unknown: (name: string, known: string[]) =>
+      `Unknown parameter '${name}'; this worksheet declares: ${known.join(", ") || "none"}`,
+    badSetting: (text: string) => `A parameter setting must look like name=value, got '${text}'`,
+    wrongType: (name: string, expected: string, got: string) =>
+      `Parameter '${name}' must be ${expected}, got '${got}'`,
+    outOfRange: (name: string, value: number, min?: number, max?: number, unit = "") =>
+      `Parameter '${name}' must be ${
+        min !== undefined && max !== undefined
+          ? `between ${min}${unit} and ${max}${unit}`
+          : min !== undefined
+          ? `at least ${min}${unit}`
+          : `at most ${max}${unit}`
+      }, got ${value}${unit}`,
+  },
+  execute: {
+    timeout: (seconds: number) =>
+      `The worksheet did not finish within ${seconds} s and was stopped (raise the limit with --timeout)`,
+    memory: (mb: number) =>
+      `The worksheet used more than ${mb} MB of memory and was stopped (raise the limit with --memory)`,
+    heap: (mb: number) =>
+      `The worksheet ran out of its ${mb} MB JavaScript heap and was stopped (raise it with --memory)`,
+    output: (mb: number) => `The worksheet printed more than ${mb} MB and was stopped`,
+    crashed: (code: number) => `The worksheet process ended unexpectedly (exit code ${code})`,
+    notCapable: (detail: string) =>
+      `Blocked by the sandbox: ${detail}. Worksheets cannot use the network, write files, run programs, read environment variables, or read outside the library and their own folder`,
+    notRun: "Not run: an earlier block failed",
+  },
+  cli: {
+    usage: `tapsheet: turn filter-design worksheets into signed-off design reports
+
+Usage:
+  tapsheet run <worksheet.md or folder>... [options]   run worksheets, write reports
+  tapsheet check <worksheet.md or folder>...           type-check worksheets without running them
+  tapsheet new <template> <file.md>                    start a worksheet from a template
+  tapsheet verify <worksheet.md> [--out DIR]           re-run and compare with the existing report
+  tapsheet help [command]                              show help
+
+Run 'tapsheet <command> --help' for the options of a command.`,
+    runUsage: `tapsheet run <worksheet.md or folder>... [options]
+
+Runs each worksheet in a sandbox and writes reports/<name>/index.html with its
+figures, exports and manifest.json.
+
+Options:
+  --out DIR            output folder (default: reports)
+  --set name=value     override a front-matter parameter (repeatable)
+  --params FILE        read parameter overrides from a JSON or YAML file
+  --timeout SECONDS    wall-clock limit per worksheet (default: 60)
+  --memory MB          memory limit per worksheet (default: 1024)
+  --date YYYY-MM-DD    date printed in the report (default: SOURCE_DATE_EPOCH, else today)
+  --json FILE          write machine-readable results to FILE ('-' for standard output)
+  --pdf                also write report.pdf with headless Chromium, when installed
+  --force              run even when nothing changed since the last report
+  --help               show this help
+
+Exit codes:
+  0  every requirement met
+  1  a requirement is not met
+  2  a worksheet failed (error, timeout, sandbox refusal) or bad command-line use`,
+    unknownCommand: (name: string) => `Unknown command '${name}'. Run 'tapsheet --help'.`,
+    unknownOption: (name: string) => `Unknown option '${name}'. Run 'tapsheet run --help'.`,
+    missingValue: (name: string) => `Option '${name}' needs a value`,
+    noWorksheets: "Give at least one worksheet file or folder",
+    notFound: (path: string) => `No such worksheet or folder: ${path}`,
+    badNumber: (name: string, text: string) =>
+      `Option '${name}' needs a positive number, got '${text}'`,
+    badDate: (text: string) => `--date needs a date as YYYY-MM-DD, got '${text}'`,
+  },
+} as const;

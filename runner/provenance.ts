@@ -1,0 +1,41 @@
+// Versions and dates recorded in every report.
+import { join } from "node:path";
+import { projectRoot } from "./execute.ts";
+
+/** tapsheet's own version, from deno.json. */
+export function tapsheetVersion(): string {
+  const config = JSON.parse(Deno.readTextFileSync(join(projectRoot, "deno.json")));
+  return String(config.version ?? "unknown");
+}
+
+/** The npm packages tapsheet depends on directly, with the versions the lock file pins. */
+export function packageVersions(): { name: string; version: string }[] {
+  const config = JSON.parse(Deno.readTextFileSync(join(projectRoot, "deno.json")));
+  let lock: { specifiers?: Record<string, string> } = {};
+  try {
+    lock = JSON.parse(Deno.readTextFileSync(join(projectRoot, "deno.lock")));
+  } catch {
+    // no lock file: fall back to the versions written in deno.json
+  }
+  const out: { name: string; version: string }[] = [];
+  for (const target of Object.values(config.imports as Record<string, string>)) {
+    const m = /^npm:((?:@[^/]+\/)?[^@]+)@(.+)$/.exec(target);
+    if (!m) continue;
+    const pinned = lock.specifiers?.[target];
+    out.push({ name: m[1]!, version: pinned ?? m[2]! });
+  }
+  return out.sort((a, b) => a.name.localeCompare(b.name));
+}
+
+/**
+ * The run date, YYYY-MM-DD (UTC): the given date, else SOURCE_DATE_EPOCH (the
+ * reproducible-builds convention, seconds since 1970), else today.
+ */
+export function runDate(given?: string): string {
+  if (given !== undefined) return given;
+  const epoch = Deno.env.get("SOURCE_DATE_EPOCH");
+  if (epoch !== undefined && /^\d+$/.test(epoch)) {
+    return new Date(Number(epoch) * 1000).toISOString().slice(0, 10);
+  }
+  return new Date().toISOString().slice(0, 10);
+}

@@ -1,0 +1,187 @@
+// End to end: the command line renders worksheets into reports.
+import assert from "node:assert/strict";
+import { join } from "node:path";
+import { fileURLToPath } from "node:url";
+
+const root = fileURLToPath(new URL("../../", import.meta.url));
+const demo = join(root, "worksheets", "pump_monitor_antialias.md");
+
+async function tapsheet(args: string[], env: Record<string, string> = {}) {
+  const out = await new Deno.Command(Deno.execPath(), {
+    args: [
+      "run",
+      "-A",
+      `--config=${join(root, "deno.json")}`,
+      join(root, "runner", "cli.ts"),
+      ...args,
+    ],
+    env: { NO_COLOR: "1", ...env },
+    stdout: "piped",
+    stderr: "piped",
+  }).output();
+  const decode = (b: Uint8Array) => new TextDecoder().decode(b);
+  return { code: out.code, stdout: decode(out.stdout), stderr: decode(out.stderr) };
+}
+
+async function sha256(path: string): Promise<string> {
+  const digest = await crypto.subtle.digest("SHA-256", await Deno.readFile(path));
+  return Array.from(new Uint8Array(digest), (b) => b.toString(16).padStart(2, "0")).join("");
+}
+
+Deno.test("cli: the demo worksheet renders a report with figures, requirement table and provenance", async () => {
+  const out = await Deno.makeTempDir();
+  try {
+    const r = await tapsheet(["run", demo, "--out", out, "--date", "2026-01-15"]);
+    // The demo's windowed design honestly misses its strict requirements: exit code 1.
+    assert.equal(r.code, 1, r.stderr);
+    assert.match(r.stdout, /not met .*pump_monitor_antialias\.md .*requirements met/);
+    const dir = join(out, "pump_monitor_antialias");
+    const html = await Deno.readTextFile(join(dir, "index.html"));
+    const figures = [...html.matchAll(/<img src="(figures\/[^"]+\.svg)"/g)].map((m) => m[1]!);
+    assert.ok(figures.length >= 4, `figures: ${figures.join(", ")}`);
+    for (const f of figures) {
+      const svg = await Deno.readTextFile(join(dir, f));
+      assert.match(svg, /^<svg[^>]+width="\d+"[^>]+height="\d+"/);
+      assert.match(svg, /Frequency \(Hz\)|Sample/);
+    }
+    assert.match(html, /<table class="requirements">/);
+    assert.match(html, /PV40-SRS-113/);
+    assert.ok(html.includes(await sha256(demo)), "report shows the worksheet's SHA-256");
+    assert.match(html, /2026-01-15/);
+    assert.doesNotMatch(html, /<script/i);
+    const manifest = JSON.parse(await Deno.readTextFile(join(dir, "manifest.json")));
+    assert.equal(manifest.verdict, "not met");
+    assert.equal(manifest.requirements.length, 3);
+  } finally {
+    await Deno.remove(out, { recursive: true });
+  }
+});
+
+Deno.test("cli: same worksheet and pinned date give a byte-identical report", async () => {
+  const a = await Deno.makeTempDir();
+  const b = await Deno.makeTempDir();
+  try {
+    await tapsheet(["run", demo, "--out", a], { SOURCE_DATE_EPOCH: "1767225600" });
+    await tapsheet(["run", demo, "--out", b], { SOURCE_DATE_EPOCH: "1767225600" });
+    const files = async (root: string) => {
+      const list: string[] = [];
+      const walk = async (d: string, prefix: string) => {
+        for await (const e of Deno.readDir(d)) {
+          if (e.isDirectory) await walk(join(d, e.name), `${prefix}${e.name}/`);
+          else list.push(`${prefix}${e.name}`);
+        }
+      };
+      await walk(root, "");
+      return list.sort();
+    };
+    const la = await files(a);
+    assert.deepEqual(la, await files(b));
+    for (const f of la) assert.equal(await sha256(join(a, f)), await sha256(join(b, f)), f);
+    const html = await Deno.readTextFile(join(a, "pump_monitor_antialias", "index.html"));
+    assert.match(html, /2026-01-01/); // source: SOURCE_DATE_EPOCH 1767225600 is 2026-01-01T00:00:00Z
+  } finally {
+    await Deno.remove(a, { recursive: true });
+    await Deno.remove(b, { recursive: true });
+  }
+});
+
+Deno.test("cli: a failing block is reported at its worksheet line; later blocks are not run", async () => {
+  const out = await Deno.makeTempDir();
+  const sheet = join(out, "broken.md");
+  await Deno.writeTextFile(
+    sheet,
+    [
+      "---",
+      "title: Broken on purpose",
+      "---",
+      "",
+      "```ts",
+      'import { sheet } from "tapsheet/sheet";',
+      'sheet.choice("a", 1, "first block runs");',
+      "```",
+      "",
+      "```ts",
+      "const taps = [1, 2, 3];",
+      'if (taps.length === 3) throw new RangeError("three taps are not enough");',
+      "```",
+      "",
+      "```ts",
+      'sheet.choice("b", 2, "never");',
+      "```",
+      "",
+    ].join("\n"),
+  );
+  try {
+    const r = await tapsheet(["run", sheet, "--out", join(out, "reports")]);
+    assert.equal(r.code, 2);
+    assert.match(r.stderr, /broken\.md:12:\d+: RangeError: three taps are not enough/);
+    assert.match(r.stderr, /12 \| if \(taps.length === 3\)/);
+    const html = await Deno.readTextFile(join(out, "reports", "broken", "index.html"));
+    assert.match(html, /Failed at [^<]*broken\.md:12/);
+    assert.match(html, /Not run: an earlier block failed/);
+    assert.match(html, /Incomplete/);
+    assert.match(html, /a = <strong>1<\/strong>/);
+    assert.doesNotMatch(html, /b = <strong>2<\/strong>/);
+  } finally {
+    await Deno.remove(out, { recursive: true });
+  }
+});
+
+Deno.test("cli: sandbox refusals show on the command line and in the report", async () => {
+  const out = await Deno.makeTempDir();
+  try {
+    const hostile = fileURLToPath(new URL("./hostile/write_file.md", import.meta.url));
+    const r = await tapsheet(["run", hostile, "--out", out]);
+    assert.equal(r.code, 2);
+    assert.match(r.stderr, /write_file\.md:13:\d+: Blocked by the sandbox/);
+    const html = await Deno.readTextFile(join(out, "write_file", "index.html"));
+    assert.match(html, /Blocked by the sandbox/);
+  } finally {
+    await Deno.remove(out, { recursive: true });
+  }
+});
+
+const usage: [string, string[], number, RegExp][] = [
+  ["unknown command", ["frobnicate"], 2, /Unknown command 'frobnicate'/],
+  ["unknown option", ["run", demo, "--colour"], 2, /Unknown option '--colour'/],
+  [
+    "missing worksheet",
+    ["run", "no/such/file.md"],
+    2,
+    /No such worksheet or folder: no\/such\/file.md/,
+  ],
+  ["unknown parameter", ["run", demo, "--set", "fz=8000"], 2, /Unknown parameter 'fz'/],
+  [
+    "parameter of wrong type",
+    ["run", demo, "--set", "fs=fast"],
+    2,
+    /'fs' must be a number, got 'fast'/,
+  ],
+  [
+    "parameter out of range",
+    ["run", demo, "--set", "fs=10"],
+    2,
+    /'fs' must be between 1000 Hz and 192000 Hz, got 10 Hz/,
+  ],
+  ["bad date", ["run", demo, "--date", "yesterday"], 2, /--date needs a date/],
+];
+for (const [what, args, code, message] of usage) {
+  Deno.test(`cli: ${what} → exit ${code} with a clear message`, async () => {
+    const r = await tapsheet(args);
+    assert.equal(r.code, code);
+    assert.match(r.stderr, message);
+  });
+}
+
+Deno.test("cli: --help on every command", async () => {
+  for (
+    const args of [["--help"], ["run", "--help"], ["check", "--help"], ["new", "--help"], [
+      "verify",
+      "--help",
+    ]]
+  ) {
+    const r = await tapsheet(args);
+    assert.equal(r.code, 0, args.join(" "));
+    assert.match(r.stdout, /tapsheet/);
+  }
+});

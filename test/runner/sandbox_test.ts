@@ -1,0 +1,190 @@
+// Hostile worksheets: each must be contained, reported at its line, and leave
+// nothing behind. source: the sandbox rules in DESIGN.md ("Safety and robustness").
+import assert from "node:assert/strict";
+import { executeWorksheet } from "../../runner/execute.ts";
+import { parseWorksheet } from "../../runner/parse.ts";
+import type { RunOutcome } from "../../runner/types.ts";
+
+const dir = new URL("./hostile/", import.meta.url);
+
+interface Case {
+  file: string;
+  outcome: RunOutcome;
+  message: RegExp;
+  /** Worksheet line of the reported problem. */
+  line: number;
+  /** Whether block 0 ran before the failure. */
+  firstBlockRan: boolean;
+  limits?: { timeoutSeconds?: number; memoryMb?: number; outputMb?: number };
+}
+
+const cases: Case[] = [
+  {
+    file: "network",
+    outcome: "error",
+    message: /Blocked by the sandbox.*net/s,
+    line: 13,
+    firstBlockRan: true,
+  },
+  {
+    file: "write_file",
+    outcome: "error",
+    message: /Blocked by the sandbox.*write/s,
+    line: 13,
+    firstBlockRan: true,
+  },
+  {
+    file: "read_outside",
+    outcome: "error",
+    message: /Blocked by the sandbox.*read/s,
+    line: 13,
+    firstBlockRan: true,
+  },
+  {
+    file: "environment",
+    outcome: "error",
+    message: /Blocked by the sandbox.*env/s,
+    line: 13,
+    firstBlockRan: true,
+  },
+  {
+    file: "subprocess",
+    outcome: "error",
+    message: /Blocked by the sandbox.*run/s,
+    line: 13,
+    firstBlockRan: true,
+  },
+  {
+    file: "ffi",
+    outcome: "error",
+    message: /Blocked by the sandbox.*ffi/s,
+    line: 13,
+    firstBlockRan: true,
+  },
+  {
+    file: "eval_import",
+    outcome: "error",
+    message: /EvalError|Code generation from strings disallowed/,
+    line: 13,
+    firstBlockRan: true,
+  },
+  {
+    file: "indirect_eval",
+    outcome: "error",
+    message: /EvalError|Code generation from strings disallowed/,
+    line: 14,
+    firstBlockRan: true,
+  },
+  {
+    file: "import_outside",
+    outcome: "rejected",
+    message: /may import only "tapsheet"/,
+    line: 13,
+    firstBlockRan: false,
+  },
+  {
+    file: "dynamic_import",
+    outcome: "rejected",
+    message: /may not use import\(\)/,
+    line: 13,
+    firstBlockRan: false,
+  },
+  {
+    file: "remote_import",
+    outcome: "rejected",
+    message: /not "https:\/\/example.invalid/,
+    line: 13,
+    firstBlockRan: false,
+  },
+  {
+    file: "infinite_loop",
+    outcome: "timeout",
+    message: /did not finish within 2 s/,
+    line: 12,
+    firstBlockRan: true,
+    limits: { timeoutSeconds: 2 },
+  },
+  {
+    file: "heap_bomb",
+    outcome: "memory limit",
+    message: /memory|heap/,
+    line: 12,
+    firstBlockRan: true,
+    limits: { memoryMb: 128 },
+  },
+  {
+    file: "typed_array_bomb",
+    outcome: "memory limit",
+    message: /more than 128 MB of memory/,
+    line: 12,
+    firstBlockRan: true,
+    limits: { memoryMb: 128 },
+  },
+  {
+    file: "output_flood",
+    outcome: "output limit",
+    message: /printed more than 1 MB/,
+    line: 12,
+    firstBlockRan: true,
+    limits: { outputMb: 1 },
+  },
+  {
+    file: "deep_recursion",
+    outcome: "error",
+    message: /RangeError: Maximum call stack/,
+    line: 13,
+    firstBlockRan: true,
+  },
+  {
+    file: "unhandled_rejection",
+    outcome: "error",
+    message: /nobody catches this/,
+    line: 13,
+    firstBlockRan: true,
+  },
+  {
+    file: "timer_error",
+    outcome: "error",
+    message: /timer went off/,
+    line: 14,
+    firstBlockRan: true,
+  },
+];
+
+for (const c of cases) {
+  Deno.test(`sandbox: ${c.file} is contained and reported`, async () => {
+    const path = new URL(`${c.file}.md`, dir).pathname;
+    const ws = parseWorksheet(path, await Deno.readTextFile(path));
+    const result = await executeWorksheet(ws, ws.params, { timeoutSeconds: 20, ...c.limits });
+    assert.equal(result.outcome, c.outcome, JSON.stringify(result.problem));
+    assert.ok(result.problem, "a problem is reported");
+    assert.match(result.problem.message, c.message);
+    assert.equal(result.problem.path, path);
+    assert.equal(result.problem.line, c.line, result.problem.message);
+    const statuses = result.blocks.map((b) => b.status);
+    assert.deepEqual(
+      statuses,
+      c.firstBlockRan ? ["ok", "failed", "not run"] : ["not run", "not run", "not run"],
+    );
+  });
+}
+
+Deno.test("sandbox: the refused write left no file", async () => {
+  await assert.rejects(Deno.stat("/tmp/tapsheet-hostile-write.txt"), Deno.errors.NotFound);
+});
+
+Deno.test("sandbox: tampering with globals does not reach the next worksheet", async () => {
+  const tamper = new URL("tamper.md", dir).pathname;
+  const first = parseWorksheet(tamper, await Deno.readTextFile(tamper));
+  const r1 = await executeWorksheet(first, {});
+  assert.equal(r1.outcome, "completed");
+  const clean = parseWorksheet(
+    "clean.md",
+    '---\ntitle: clean\n---\n\n```ts\nimport { sheet } from "tapsheet/sheet";\nsheet.table("t", ["sin"], [[Math.sin(0)], [[1, 2].map((x) => x * 2).length], [new Float64Array(2).length]]);\n```\n',
+  );
+  const r2 = await executeWorksheet(clean, {});
+  assert.equal(r2.outcome, "completed", JSON.stringify(r2.problem));
+  const table = r2.blocks[0]!.exhibits.find((e) => e.type === "table");
+  assert.ok(table && table.type === "table");
+  assert.deepEqual(table.rows, [[0], [2], [2]]);
+});
