@@ -18,3 +18,5 @@ export * from "./kaiser_parameters.ts";
 export * from "./equiripple.ts";
 export * from "./equiripple_length.ts";
 export * from "./band_error.ts";
+export * from "./least_squares.ts";
+export * from "./frequency_sampling.ts";
