@@ -48,7 +48,8 @@ export function extremeOf(
       }
     }
     const [x, f] = f1 > f2 ? [x1, f1] : [x2, f2];
-    if (f > sign * best) {
+    // Keep the grid point unless the refinement is better by more than rounding noise.
+    if (f > sign * best + 1e-12 * Math.max(1, Math.abs(best))) {
       best = sign * f;
       bestAt = x;
     }

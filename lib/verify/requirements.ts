@@ -83,6 +83,9 @@ export interface GroupDelayFlatnessRequirement extends RequirementLabel {
 /**
  * Linear phase over [from, to] Hz: the largest deviation of the unwrapped
  * phase from its least-squares straight line, at most `atMostDegrees`.
+ * Judge it over a passband: a zero on the unit circle inside the band (as in
+ * a stopband) flips the sign of the amplitude, a phase jump of π that counts
+ * as deviation.
  */
 export interface LinearPhaseRequirement extends RequirementLabel {
   kind: "linearPhase";
