@@ -18,3 +18,4 @@ export * from "./verify/mod.ts";
 export * from "./poly/mod.ts";
 export * from "./fixed/mod.ts";
 export * from "./export/mod.ts";
+export * from "./iir/mod.ts";
