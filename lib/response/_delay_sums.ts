@@ -1,10 +1,13 @@
 // Private: group delay of one polynomial C(z) = Σ c[n] z^−n on the unit circle,
 // τ(ω) = Re{ Σ n·c[n] e^(−jωn) / Σ c[n] e^(−jωn) } (Oppenheim & Schafer §5.1.2),
-// with the limit at zeros on the unit circle taken by L'Hôpital's rule.
+// with the limit at zeros on the unit circle taken by L'Hôpital's rule. The ramp
+// is centred, n − m with m = (N−1)/2, and m added back: the same value, but the
+// ramp sum no longer shares the large linear-phase term with the plain sum, so
+// less cancels near stopband nulls.
 import { realFft } from "../fft/real_fft.ts";
 
 /** Relative size below which a sum Σ n^m c[n] e^(−jωn) counts as zero. */
-const zeroTolerance = 1e-10;
+const zeroTolerance = 1e-13;
 
 /**
  * Delay at a frequency where C(e^jω) vanishes: with S_m = Σ n^m c[n] e^(−jωn)
@@ -46,22 +49,29 @@ export function delayAt(c: Float64Array, w: ArrayLike<number>): Float64Array {
   const out = new Float64Array(w.length);
   let total = 0;
   for (let n = 0; n < c.length; n++) total += Math.abs(c[n]!);
+  const centre = (c.length - 1) / 2;
   for (let i = 0; i < w.length; i++) {
     const wi = w[i]!;
+    // Horner's rule in z = e^(−jω): rounding acts like a tiny frequency shift,
+    // where independent cos(ωn) terms would add independent phase errors.
+    const zr = Math.cos(wi);
+    const zi = -Math.sin(wi);
     let r0 = 0;
     let i0 = 0;
     let r1 = 0;
     let i1 = 0;
-    for (let n = 0; n < c.length; n++) {
-      const cr = Math.cos(wi * n);
-      const ci = -Math.sin(wi * n);
-      r0 += c[n]! * cr;
-      i0 += c[n]! * ci;
-      r1 += n * c[n]! * cr;
-      i1 += n * c[n]! * ci;
+    for (let n = c.length - 1; n >= 0; n--) {
+      const t0 = r0 * zr - i0 * zi + c[n]!;
+      i0 = r0 * zi + i0 * zr;
+      r0 = t0;
+      const t1 = r1 * zr - i1 * zi + (n - centre) * c[n]!;
+      i1 = r1 * zi + i1 * zr;
+      r1 = t1;
     }
     const d = r0 * r0 + i0 * i0;
-    out[i] = Math.sqrt(d) > zeroTolerance * total ? (r1 * r0 + i1 * i0) / d : delayAtZero(c, wi);
+    out[i] = Math.sqrt(d) > zeroTolerance * total
+      ? centre + (r1 * r0 + i1 * i0) / d
+      : delayAtZero(c, wi);
   }
   return out;
 }
@@ -72,9 +82,10 @@ export function delayOnGrid(c: Float64Array, points: number): Float64Array {
   const plain = new Float64Array(size);
   const ramp = new Float64Array(size);
   let total = 0;
+  const centre = (c.length - 1) / 2;
   for (let n = 0; n < c.length; n++) {
     plain[n % size]! += c[n]!;
-    ramp[n % size]! += n * c[n]!;
+    ramp[n % size]! += (n - centre) * c[n]!;
     total += Math.abs(c[n]!);
   }
   const s0 = realFft(plain);
@@ -85,7 +96,7 @@ export function delayOnGrid(c: Float64Array, points: number): Float64Array {
     const i0 = s0.im[k]!;
     const d = r0 * r0 + i0 * i0;
     out[k] = Math.sqrt(d) > zeroTolerance * total
-      ? (s1.re[k]! * r0 + s1.im[k]! * i0) / d
+      ? centre + (s1.re[k]! * r0 + s1.im[k]! * i0) / d
       : delayAtZero(c, (Math.PI * k) / (points - 1));
   }
   return out;
