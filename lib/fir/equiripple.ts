@@ -35,7 +35,10 @@ export interface EquirippleOptions {
 export interface EquirippleDesign {
   /** Taps h[0..N−1]. */
   taps: Float64Array;
-  /** The weighted equiripple deviation δ (the minimised maximum of W·|A − D|). */
+  /**
+   * The weighted equiripple deviation δ (the minimised maximum of W·|A − D|) on the
+   * design grid; the true peak between grid points can be slightly (≲1%) larger.
+   */
   deviation: number;
   /** Peak unweighted deviation per band on the design grid, δ / weight (linear). */
   bandDeviations: number[];

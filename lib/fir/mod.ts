@@ -20,3 +20,6 @@ export * from "./equiripple_length.ts";
 export * from "./band_error.ts";
 export * from "./least_squares.ts";
 export * from "./frequency_sampling.ts";
+export * from "./halfband.ts";
+export * from "./linear_phase.ts";
+export * from "./zeros.ts";

@@ -156,6 +156,24 @@ for u, d, ntaps, nx in [(1, 3, 24, 50), (4, 1, 17, 20), (3, 2, 31, 40), (2, 5, 4
                "signal": arr(x), "output": arr(y)})
 out["polyphase"] = up
 
+# Half-band lowpass: the plain Remez design on the full band spec is the reference.
+hb = []
+for n, fs_, fp in [(23, 48000.0, 9000.0), (47, 1.0, 0.2), (11, 2.0, 0.3)]:
+    taps = signal.remez(n, [0, fp, fs_ / 2 - fp, fs_ / 2], [1, 0], fs=fs_)
+    hb.append({"function": "scipy.signal.remez", "length": n, "fs": fs_, "passbandEdge": fp,
+               "taps": arr(taps)})
+out["halfband"] = hb
+
+# Zeros of FIR filters (numpy.roots on the taps, highest power first).
+zs = []
+for name, taps in [("remez 31-tap lowpass", signal.remez(31, [0, 0.1, 0.15, 0.5], [1, 0])),
+                   ("firwin 20-tap lowpass", signal.firwin(20, 0.3)),
+                   ("arbitrary", np.array([1.0, -2.5, 3.25, 0.5, -1.0, 0.0]))]:
+    r = np.roots(taps)
+    zs.append({"function": "numpy.roots", "name": name, "taps": arr(taps),
+               "zeros": [[float(z.real), float(z.imag)] for z in r]})
+out["zeros"] = zs
+
 here = os.path.dirname(os.path.abspath(__file__))
 with open(os.path.join(here, "fir_design.json"), "w") as f:
     json.dump(out, f, indent=1)
