@@ -1,0 +1,70 @@
+import assert from "node:assert/strict";
+import { applyFir, applyFirDirect } from "../../../lib/fir/apply.ts";
+import { assertClose } from "../../_tolerance.ts";
+
+interface FilterCase {
+  taps: number[];
+  input: number[];
+  reference: string;
+  output: number[];
+}
+const ref = JSON.parse(
+  await Deno.readTextFile(new URL("../../reference/analysis.json", import.meta.url)),
+) as { filtering: FilterCase[] };
+
+Deno.test("direct form, overlap-add and automatic choice all match SciPy", () => {
+  for (const c of ref.filtering) {
+    const what = `${c.taps.length} taps`;
+    // source: scipy.signal.lfilter(h, [1], x) (c.reference)
+    const tol = { abs: 1e-12 };
+    assertClose(applyFirDirect(c.taps, c.input), c.output, tol, `${what} direct`);
+    assertClose(applyFir(c.taps, c.input), c.output, tol, `${what} auto`);
+    assertClose(applyFir(c.taps, c.input, { method: "overlap-add" }), c.output, tol, `${what} FFT`);
+    assertClose(
+      applyFir(c.taps, c.input, { method: "direct" }),
+      c.output,
+      tol,
+      `${what} forced direct`,
+    );
+  }
+});
+
+Deno.test("direct form: every output length and tap count around the 4-way unrolling", () => {
+  for (let taps = 1; taps <= 6; taps++) {
+    for (let length = 0; length <= 9; length++) {
+      const h = Array.from({ length: taps }, (_, k) => (k + 1) / 7);
+      const x = Array.from({ length }, (_, i) => Math.sin(i + 1));
+      const y = applyFirDirect(h, x);
+      for (let i = 0; i < length; i++) {
+        let expected = 0;
+        for (let k = 0; k <= Math.min(i, taps - 1); k++) expected += h[k]! * x[i - k]!;
+        // source: the FIR difference equation y[n] = Σ h[k] x[n−k] (O&S §6.5.1)
+        assertClose(y[i]!, expected, { abs: 1e-15 }, `N=${taps} L=${length} y[${i}]`);
+      }
+    }
+  }
+});
+
+Deno.test("two-tap average, the textbook case, by every method", () => {
+  const x = [2, 4, 6, 8];
+  for (const method of ["auto", "direct", "overlap-add"] as const) {
+    assertClose(applyFir([0.5, 0.5], x, { method }), [1, 3, 5, 7], { abs: 1e-15 }, method);
+  }
+});
+
+Deno.test("bad input to applyFir", () => {
+  const cases: [() => unknown, ErrorConstructor, string][] = [
+    [() => applyFir([], [1, 2]), RangeError, "Taps must hold at least 1"],
+    [() => applyFir([1], [1, Number.NaN]), TypeError, "Signal[1] must be a finite number"],
+    [() => applyFir([1], [1], { method: "fast" as "auto" }), TypeError, 'got "fast"'],
+    [() => applyFirDirect([Number.POSITIVE_INFINITY], [1]), TypeError, "Taps[0]"],
+  ];
+  for (const [run, kind, text] of cases) {
+    assert.throws(
+      run,
+      (e: unknown) => e instanceof kind && (e as Error).message.includes(text),
+      text,
+    );
+  }
+  assert.equal(applyFir([1, 2], []).length, 0);
+});
