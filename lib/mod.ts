@@ -19,3 +19,4 @@ export * from "./poly/mod.ts";
 export * from "./fixed/mod.ts";
 export * from "./export/mod.ts";
 export * from "./iir/mod.ts";
+export * from "./multirate/mod.ts";

@@ -71,7 +71,12 @@ interface Segment {
   first: number;
 }
 
-/** Dense grid: per band lo, lo + Δ, … with the last point moved onto hi (MPR 1973). */
+const minimumBandPoints = 8;
+
+/**
+ * Dense grid: per band lo, lo + Δ, … with the last point moved onto hi (MPR
+ * 1973); a band narrower than 7Δ gets 8 evenly spread points instead.
+ */
 export function buildGrid(p: RemezProblem, r: number, negative: boolean, odd: boolean): Grid {
   const delta = 0.5 / (p.gridDensity * r);
   const f: number[] = [];
@@ -82,6 +87,20 @@ export function buildGrid(p: RemezProblem, r: number, negative: boolean, odd: bo
     let first = band.lo;
     if (b === 0 && negative && first < delta) first = delta;
     const start = f.length;
+    if (band.hi - first < (minimumBandPoints - 1) * delta) {
+      // A band narrower than a few grid steps (short filters with narrow bands)
+      // still gets enough points to hold its share of the extremal frequencies.
+      for (let i = 0; i < minimumBandPoints; i++) {
+        f.push(
+          i === minimumBandPoints - 1
+            ? band.hi
+            : first + ((band.hi - first) * i) / (minimumBandPoints - 1),
+        );
+        bandOf.push(b);
+      }
+      segments.push({ start, uniform: 0, first });
+      continue;
+    }
     for (let i = 0;; i++) {
       f.push(first + i * delta);
       bandOf.push(b);
