@@ -76,7 +76,9 @@ a { color: ${p.series[2]}; }
   @bottom-right { content: "Page " counter(page) " of " counter(pages); font-family: ${fontStack}; font-size: 8pt; color: ${p.muted}; } }
 @media print {
   body { max-width: none; padding: 0; font-size: 10.5pt; }
-  h2 { break-after: avoid; }
+  h2, h3 { break-after: avoid; }
+  /* Printed coefficients are shown in full even when the listing is folded on screen. */
+  details.coefficients::details-content { content-visibility: visible; display: block; }
   table, .figure, .check, .problem { break-inside: avoid; }
   details.code:not([open]) { display: none; }
   details.coefficients > summary { list-style: none; }

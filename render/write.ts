@@ -41,7 +41,10 @@ export interface WrittenReport {
 }
 
 /** Everything needed to write one report. */
-export type ReportContent = Omit<ReportInput, "figures" | "exports">;
+export type ReportContent = Omit<ReportInput, "figures" | "exports"> & {
+  /** SHA-256 of everything the result depends on, to skip unchanged re-runs. */
+  inputs: string;
+};
 
 /**
  * Render and write the report for one run into `<outDir>/<name>/`.
@@ -67,6 +70,7 @@ export async function writeReport(
     };
 
     const figures = new Map<Exhibit, WrittenFile>();
+    const previous = await previousFigures(finalDir, content.provenance.packages);
     let count = 0;
     for (const block of content.execution.blocks) {
       for (const exhibit of block.exhibits) {
@@ -74,8 +78,11 @@ export async function writeReport(
         count++;
         const stem = `figures/${String(count).padStart(2, "0")}-${slug(exhibit.title)}`;
         const spec = figureToVegaLite(exhibit as FigureExhibit);
-        await write(`${stem}.vl.json`, JSON.stringify(spec, null, 1) + "\n");
-        figures.set(exhibit, await write(`${stem}.svg`, await vegaLiteToSvg(spec), exhibit.title));
+        const specText = JSON.stringify(spec, null, 1) + "\n";
+        await write(`${stem}.vl.json`, specText);
+        // A figure whose specification is unchanged is not rendered again.
+        const svg = previous.get(specText) ?? (await vegaLiteToSvg(spec));
+        figures.set(exhibit, await write(`${stem}.svg`, svg, exhibit.title));
       }
     }
 
@@ -116,6 +123,30 @@ export async function writeReport(
   }
 }
 
+/** SVG of each figure in an existing report, keyed by its vega-lite specification text. */
+async function previousFigures(
+  dir: string,
+  packages: Provenance["packages"],
+): Promise<Map<string, string>> {
+  const out = new Map<string, string>();
+  try {
+    // Reuse only figures drawn by the same package versions.
+    const old = JSON.parse(await Deno.readTextFile(join(dir, "manifest.json"))) as Manifest;
+    if (JSON.stringify(old.provenance.packages) !== JSON.stringify(packages)) return out;
+    for await (const e of Deno.readDir(join(dir, "figures"))) {
+      if (!e.name.endsWith(".vl.json")) continue;
+      const spec = await Deno.readTextFile(join(dir, "figures", e.name));
+      const svg = await Deno.readTextFile(
+        join(dir, "figures", e.name.replace(/\.vl\.json$/, ".svg")),
+      );
+      out.set(spec, svg);
+    }
+  } catch {
+    // no previous report, or an incomplete one: render everything
+  }
+  return out;
+}
+
 /** If a previous run died between the two renames, put the old report back. */
 async function recoverInterruptedSwap(outDir: string, name: string): Promise<void> {
   const old = join(outDir, `.${name}.old`);
@@ -153,6 +184,7 @@ export interface Manifest {
   provenance: Provenance;
   files: WrittenFile[];
   fingerprint: string;
+  inputs: string;
 }
 
 function manifestOf(
@@ -175,6 +207,7 @@ function manifestOf(
     provenance: content.provenance,
     files,
     fingerprint,
+    inputs: content.inputs,
   };
   if (content.execution.problem) m.problem = content.execution.problem;
   return m;

@@ -1,10 +1,13 @@
 // The command line: tapsheet run | check | new | verify | help.
 import { basename, dirname, join, resolve } from "node:path";
+import { pathToFileURL } from "node:url";
 import { parse as parseYaml } from "yaml";
-import { assembleWorksheet } from "./assemble.ts";
+import { assembleWorksheet, blockMarker } from "./assemble.ts";
 import { projectRoot } from "./execute.ts";
 import { messages } from "./messages.ts";
 import { ParamError } from "./params.ts";
+import { writeReportsIndex } from "../render/index_page.ts";
+import { findChromium, printToPdf } from "./chromium.ts";
 import { parseWorksheet, WorksheetError } from "./parse.ts";
 import { type RunOptions, type RunSummary, runWorksheet } from "./run.ts";
 
@@ -84,7 +87,7 @@ function formatDuration(ms: number): string {
 }
 
 function verdictLabel(s: RunSummary): string {
-  switch (s.report.verdict) {
+  switch (s.verdict) {
     case "met":
       return paint("32", "met");
     case "not met":
@@ -129,37 +132,40 @@ async function commandRun(args: string[]): Promise<number> {
   const memory = positiveNumber("--memory", options.get("--memory")?.at(-1));
   if (memory !== undefined) runOptions.memoryMb = memory;
   if (date !== undefined) runOptions.date = date;
+  if (options.has("--force")) runOptions.force = true;
 
   const files = await collect(positional);
   const summaries: RunSummary[] = [];
   for (const file of files) {
     const summary = await runWorksheet(file, runOptions);
     summaries.push(summary);
-    const p = summary.execution.problem;
+    const p = summary.problem;
     console.log(
       `${verdictLabel(summary)}  ${file}  ${summary.met}/${summary.checked} requirements met  ${
-        formatDuration(summary.durationMs)
-      }  → ${join(summary.report.dir, "index.html")}`,
+        summary.skipped ? "unchanged, not re-run" : formatDuration(summary.durationMs)
+      }  → ${join(summary.reportDir, "index.html")}`,
     );
     if (p) {
       console.error(`  ${p.path}:${p.line}${p.column ? `:${p.column}` : ""}: ${p.message}`);
       if (p.excerpt) console.error(`  ${p.line} | ${p.excerpt}`);
     }
+    if (options.has("--pdf")) await writePdf(summary.reportDir);
   }
   if (summaries.length > 1) printSummary(summaries);
+  await writeReportsIndex(runOptions.outDir!);
   const json = options.get("--json")?.at(-1);
   if (json !== undefined) {
     const results = JSON.stringify(
       summaries.map((s) => ({
         worksheet: s.path,
-        report: join(s.report.dir, "index.html"),
-        verdict: s.report.verdict,
-        outcome: s.execution.outcome,
+        report: join(s.reportDir, "index.html"),
+        verdict: s.verdict,
+        outcome: s.outcome,
         requirementsMet: s.met,
         requirementsChecked: s.checked,
         durationMs: Math.round(s.durationMs),
-        fingerprint: s.report.fingerprint,
-        problem: s.execution.problem ?? null,
+        fingerprint: s.fingerprint,
+        problem: s.problem ?? null,
       })),
       null,
       2,
@@ -167,15 +173,28 @@ async function commandRun(args: string[]): Promise<number> {
     if (json === "-") console.log(results);
     else await Deno.writeTextFile(json, results + "\n");
   }
-  if (summaries.some((s) => s.report.verdict === "incomplete")) return exitCodes.failed;
-  if (summaries.some((s) => s.report.verdict === "not met")) return exitCodes.notMet;
+  if (summaries.some((s) => s.verdict === "incomplete")) return exitCodes.failed;
+  if (summaries.some((s) => s.verdict === "not met")) return exitCodes.notMet;
   return exitCodes.met;
+}
+
+/** Print a report to report.pdf beside it with headless Chromium, when installed. */
+async function writePdf(reportDir: string): Promise<void> {
+  if (findChromium() === undefined) {
+    console.error(`  ${messages.cli.noChromium}`);
+    return;
+  }
+  const pdf = await printToPdf(pathToFileURL(resolve(reportDir, "index.html")).href);
+  const temp = join(reportDir, `.report.pdf.${crypto.randomUUID().slice(0, 8)}`);
+  await Deno.writeFile(temp, pdf);
+  await Deno.rename(temp, join(reportDir, "report.pdf"));
+  console.log(`  → ${join(reportDir, "report.pdf")}`);
 }
 
 function printSummary(summaries: RunSummary[]): void {
   const rows = summaries.map((s) => [
     s.name,
-    s.report.verdict === "incomplete" ? "failed" : s.report.verdict,
+    s.verdict === "incomplete" ? "failed" : s.verdict,
     `${s.met}/${s.checked}`,
     formatDuration(s.durationMs),
   ]);
@@ -229,7 +248,12 @@ async function typeCheck(file: string, source: string, module: string): Promise<
   const dir = await Deno.makeTempDir({ prefix: "tapsheet-check-" });
   const path = join(dir, basename(file).replace(/\.md$/i, "") + ".ts");
   try {
-    await Deno.writeTextFile(path, module);
+    // The harness defines the block marker at run time; declare it for the checker.
+    // Appended after the last line, so worksheet line numbers are unchanged.
+    await Deno.writeTextFile(
+      path,
+      `${module}declare function ${blockMarker}(index: number): void;\n`,
+    );
     const out = await new Deno.Command(Deno.execPath(), {
       args: ["check", "--quiet", `--config=${join(projectRoot, "deno.json")}`, path],
       env: { NO_COLOR: "1", RUST_BACKTRACE: "0" },
@@ -240,14 +264,18 @@ async function typeCheck(file: string, source: string, module: string): Promise<
     const text = new TextDecoder().decode(out.stderr);
     const lines = source.split("\n");
     const problems: string[] = [];
-    const re = /(TS\d+) \[ERROR\]: ([^\n]*)[\s\S]*?at file:\/\/\S+?:(\d+):(\d+)/g;
+    const re = /(TS\d+ \[ERROR\]|SyntaxError): ([^\n]*)[\s\S]*?at file:\/\/\S+?:(\d+):(\d+)/g;
     for (let m = re.exec(text); m !== null; m = re.exec(text)) {
       const line = Number(m[3]);
       problems.push(
-        `${file}:${line}:${m[4]}: ${m[2]} (${m[1]})\n  ${line} | ${lines[line - 1] ?? ""}`,
+        `${file}:${line}:${m[4]}: ${m[2]} (${m[1]!.replace(" [ERROR]", "")})\n  ${line} | ${
+          lines[line - 1] ?? ""
+        }`,
       );
     }
-    return problems.length > 0 ? problems : [text.trim()];
+    return problems.length > 0
+      ? problems
+      : [text.trim().replaceAll(pathToFileURL(path).href, file)];
   } finally {
     await Deno.remove(dir, { recursive: true }).catch(() => {});
   }
@@ -324,7 +352,7 @@ async function commandVerify(args: string[]): Promise<number> {
       paramsFromFile: manifest.params,
       date: manifest.provenance.date,
     });
-    const same = summary.report.fingerprint === manifest.fingerprint;
+    const same = summary.fingerprint === manifest.fingerprint;
     console.log(
       same
         ? `${paint("32", "matches")}  ${file}: the report in ${
@@ -340,6 +368,50 @@ async function commandVerify(args: string[]): Promise<number> {
   }
 }
 
+/** Re-run a worksheet whenever it or its data change. Runs until interrupted. */
+async function commandWatch(args: string[]): Promise<number> {
+  const { positional, options } = parseArgs(args, ["--out", "--set", "--date"], ["--help"]);
+  if (options.has("--help") || positional.length !== 1) {
+    console.log(messages.cli.watchUsage);
+    return options.has("--help") ? 0 : exitCodes.failed;
+  }
+  const file = positional[0]!;
+  await collect([file]);
+  const runOptions: RunOptions = {
+    outDir: options.get("--out")?.at(-1) ?? "reports",
+    settings: options.get("--set") ?? [],
+  };
+  const date = options.get("--date")?.at(-1);
+  if (date !== undefined) runOptions.date = date;
+  const outDir = resolve(runOptions.outDir!);
+  const once = async () => {
+    const s = await runWorksheet(file, runOptions);
+    await writeReportsIndex(runOptions.outDir!);
+    const stamp = new Date().toISOString().slice(11, 19);
+    console.log(
+      `${stamp}  ${verdictLabel(s)}  ${file}  ${s.met}/${s.checked} requirements met  ${
+        s.skipped ? "unchanged" : formatDuration(s.durationMs)
+      }`,
+    );
+    if (s.problem) {
+      console.error(`  ${s.problem.path}:${s.problem.line}: ${s.problem.message}`);
+    }
+  };
+  await once();
+  console.log(`Watching ${dirname(resolve(file))} for changes (Ctrl-C to stop)`);
+  const watcher = Deno.watchFs(dirname(resolve(file)), { recursive: true });
+  let timer: ReturnType<typeof setTimeout> | undefined;
+  let running = Promise.resolve();
+  for await (const event of watcher) {
+    if (event.paths.every((p) => resolve(p).startsWith(outDir) || /\/\.|~$/.test(p))) continue;
+    clearTimeout(timer);
+    timer = setTimeout(() => {
+      running = running.then(once).catch((e) => console.error(`tapsheet: ${e.message}`));
+    }, 150);
+  }
+  return 0;
+}
+
 /** Entry point; returns the exit code. */
 export async function main(args: string[]): Promise<number> {
   const [command, ...rest] = args;
@@ -353,6 +425,8 @@ export async function main(args: string[]): Promise<number> {
         return await commandNew(rest);
       case "verify":
         return await commandVerify(rest);
+      case "watch":
+        return await commandWatch(rest);
       case undefined:
       case "help":
       case "--help":

@@ -182,7 +182,7 @@ export async function executeWorksheet(
       const where = locate(`${error.message}\n${error.stack}`, error.block);
       const text = error.name === "NotCapable"
         ? messages.execute.notCapable(error.message)
-        : `${error.name}: ${error.message.replaceAll(moduleUrl, worksheet.path)}`;
+        : errorSummary(error.name, error.message);
       problem = { ...where, message: text };
     } else if (
       status.code === 133 || /heap out of memory|Fatal JavaScript/i.test(stderrLines.join("\n"))
@@ -219,6 +219,17 @@ export async function executeWorksheet(
   } finally {
     await Deno.remove(tempDir, { recursive: true }).catch(() => {});
   }
+}
+
+/**
+ * One line for a thrown error: its name and the first line of its message.
+ * Module-load failures arrive as "TypeError: SyntaxError: …" followed by a
+ * code frame; the report shows the worksheet line itself, so keep the cause.
+ */
+function errorSummary(name: string, message: string): string {
+  const first = message.split("\n")[0]!.trim();
+  const inner = /^(\w*Error): (.*)$/.exec(first);
+  return inner ? `${inner[1]}: ${inner[2]}` : `${name}: ${first}`;
 }
 
 /** The few variables the child needs to find Deno's cache; nothing else passes. */

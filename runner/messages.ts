@@ -63,6 +63,7 @@ Usage:
   tapsheet check <worksheet.md or folder>...           type-check worksheets without running them
   tapsheet new <template> <file.md>                    start a worksheet from a template
   tapsheet verify <worksheet.md> [--out DIR]           re-run and compare with the existing report
+  tapsheet watch <worksheet.md> [--out DIR]            re-run whenever the worksheet or its data change
   tapsheet help [command]                              show help
 
 Run 'tapsheet <command> --help' for the options of a command.`,
@@ -80,6 +81,7 @@ Options:
   --date YYYY-MM-DD    date printed in the report (default: SOURCE_DATE_EPOCH, else today)
   --json FILE          write machine-readable results to FILE ('-' for standard output)
   --pdf                also write report.pdf with headless Chromium, when installed
+                       (the PDF is not part of the report's fingerprint)
   --force              run even when nothing changed since the last report
   --help               show this help
 
@@ -87,6 +89,12 @@ Exit codes:
   0  every requirement met
   1  a requirement is not met
   2  a worksheet failed (error, timeout, sandbox refusal) or bad command-line use`,
+    watchUsage: `tapsheet watch <worksheet.md> [--out DIR] [--set name=value]... [--date YYYY-MM-DD]
+
+Runs the worksheet, then runs it again whenever it or a file under its data/
+folder changes. Figures whose content did not change are not rendered again.
+Stop with Ctrl-C.`,
+    noChromium: "No PDF written: Chromium is not installed (on Debian: apt-get install chromium)",
     unknownCommand: (name: string) => `Unknown command '${name}'. Run 'tapsheet --help'.`,
     unknownOption: (name: string) => `Unknown option '${name}'. Run 'tapsheet run --help'.`,
     missingValue: (name: string) => `Option '${name}' needs a value`,

@@ -79,7 +79,9 @@ export function applyOverrides(
   const known = Object.keys(declared);
   const set = (name: string, value: ParamValue) => {
     params[name] = value;
-    overridden.add(name);
+    // Only a real change counts as an override (a file may restate a value).
+    if (JSON.stringify(value) !== JSON.stringify(declared[name])) overridden.add(name);
+    else overridden.delete(name);
   };
   for (const [name, value] of Object.entries(fromFile)) {
     if (!(name in declared)) throw new ParamError(messages.params.unknown(name, known));

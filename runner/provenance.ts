@@ -22,7 +22,7 @@ export function packageVersions(): { name: string; version: string }[] {
     const m = /^npm:((?:@[^/]+\/)?[^@]+)@(.+)$/.exec(target);
     if (!m) continue;
     const pinned = lock.specifiers?.[target];
-    out.push({ name: m[1]!, version: pinned ?? m[2]! });
+    out.push({ name: m[1]!, version: (pinned ?? m[2]!).split("_")[0]! });
   }
   return out.sort((a, b) => a.name.localeCompare(b.name));
 }

@@ -1,11 +1,13 @@
 // One worksheet from file to report: parse → execute → render.
-import { basename } from "node:path";
-import { sha256Hex, writeReport, type WrittenReport } from "../render/write.ts";
-import { type ExecuteOptions, executeWorksheet } from "./execute.ts";
+import { basename, dirname, join, relative } from "node:path";
+import { sha256Hex, writeReport } from "../render/write.ts";
+import type { Manifest } from "../render/write.ts";
+import type { Verdict } from "../render/report.ts";
+import { type ExecuteOptions, executeWorksheet, projectRoot } from "./execute.ts";
 import { applyOverrides } from "./params.ts";
 import { parseWorksheet, WorksheetError } from "./parse.ts";
 import { packageVersions, runDate, tapsheetVersion } from "./provenance.ts";
-import type { ExecutionResult, ParamValue, Worksheet } from "./types.ts";
+import type { ExecutionResult, ParamValue, SourceProblem, Worksheet } from "./types.ts";
 
 /** Options for one run. */
 export interface RunOptions extends ExecuteOptions {
@@ -17,23 +19,90 @@ export interface RunOptions extends ExecuteOptions {
   paramsFromFile?: Record<string, unknown>;
   /** Date printed in the report (YYYY-MM-DD). @default SOURCE_DATE_EPOCH or today */
   date?: string;
+  /** Run even when the inputs are unchanged since the existing report. @default false */
+  force?: boolean;
 }
 
 /** The outcome of running one worksheet. */
 export interface RunSummary {
   path: string;
   name: string;
-  report: WrittenReport;
-  execution: ExecutionResult;
-  params: Record<string, ParamValue>;
+  reportDir: string;
+  verdict: Verdict;
+  outcome: ExecutionResult["outcome"];
+  problem?: SourceProblem;
   met: number;
   checked: number;
+  fingerprint: string;
+  /** True when the report was already up to date and nothing ran. */
+  skipped: boolean;
   durationMs: number;
 }
 
 /** The report folder name of a worksheet: its file name without ".md". */
 export function reportName(path: string): string {
   return basename(path).replace(/\.md$/i, "");
+}
+
+let toolHash: Promise<string> | undefined;
+
+/** SHA-256 over tapsheet's own code and lock file: a new version invalidates every report. */
+function hashOfTool(): Promise<string> {
+  toolHash ??= (async () => {
+    const parts: string[] = [];
+    const walk = async (dir: string) => {
+      const entries: Deno.DirEntry[] = [];
+      for await (const e of Deno.readDir(dir)) entries.push(e);
+      entries.sort((a, b) => a.name.localeCompare(b.name));
+      for (const e of entries) {
+        const path = join(dir, e.name);
+        if (e.isDirectory) await walk(path);
+        else if (e.isFile) {
+          parts.push(
+            `${relative(projectRoot, path)} ${await sha256Hex(await Deno.readFile(path))}`,
+          );
+        }
+      }
+    };
+    for (const dir of ["lib", "runner", "render"]) await walk(join(projectRoot, dir));
+    for (const file of ["deno.json", "deno.lock"]) {
+      parts.push(`${file} ${await sha256Hex(await Deno.readFile(join(projectRoot, file)))}`);
+    }
+    return sha256Hex(parts.join("\n"));
+  })();
+  return toolHash;
+}
+
+/**
+ * Files a worksheet's result depends on besides its own text: everything
+ * under a `data/` folder beside it.
+ */
+async function hashOfData(worksheetPath: string): Promise<string> {
+  const parts: string[] = [];
+  const walk = async (dir: string) => {
+    let entries: Deno.DirEntry[] = [];
+    try {
+      for await (const e of Deno.readDir(dir)) entries.push(e);
+    } catch {
+      return;
+    }
+    entries = entries.sort((a, b) => a.name.localeCompare(b.name));
+    for (const e of entries) {
+      const path = join(dir, e.name);
+      if (e.isDirectory) await walk(path);
+      else if (e.isFile) parts.push(`${e.name} ${await sha256Hex(await Deno.readFile(path))}`);
+    }
+  };
+  await walk(join(dirname(worksheetPath), "data"));
+  return sha256Hex(parts.join("\n"));
+}
+
+async function readManifest(dir: string): Promise<Manifest | undefined> {
+  try {
+    return JSON.parse(await Deno.readTextFile(join(dir, "manifest.json"))) as Manifest;
+  } catch {
+    return undefined;
+  }
 }
 
 /**
@@ -45,10 +114,13 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
   const started = performance.now();
   const text = await Deno.readTextFile(path);
   const name = reportName(path);
+  const outDir = options.outDir ?? "reports";
+  const reportDir = join(outDir, name);
+  const date = runDate(options.date);
   let worksheet: Worksheet;
-  let execution: ExecutionResult;
   let params: Record<string, ParamValue> = {};
   let overridden: string[] = [];
+  let problem: SourceProblem | undefined;
   try {
     const parsed = parseWorksheet(path, text);
     ({ params, overridden } = applyOverrides(
@@ -58,9 +130,9 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
       options.settings ?? [],
     ));
     worksheet = parsed;
-    execution = await executeWorksheet(parsed, params, options);
   } catch (error) {
     if (!(error instanceof WorksheetError)) throw error;
+    problem = error.problem;
     worksheet = {
       path,
       source: text,
@@ -68,31 +140,60 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
       params: {},
       parts: [],
     };
-    execution = { outcome: "rejected", blocks: [], problem: error.problem, durationMs: 0 };
   }
-  const report = await writeReport(options.outDir ?? "reports", name, {
+
+  const inputs = await sha256Hex(
+    [text, JSON.stringify(params), date, await hashOfTool(), await hashOfData(path)].join("\n"),
+  );
+  const existing = await readManifest(reportDir);
+  if (!options.force && existing?.inputs === inputs) {
+    const summary: RunSummary = {
+      path,
+      name,
+      reportDir,
+      verdict: existing.verdict,
+      outcome: existing.outcome,
+      met: existing.requirements.filter((r) => r.met).length,
+      checked: existing.requirements.length,
+      fingerprint: existing.fingerprint,
+      skipped: true,
+      durationMs: performance.now() - started,
+    };
+    if (existing.problem) summary.problem = existing.problem;
+    return summary;
+  }
+
+  const execution: ExecutionResult = problem === undefined
+    ? await executeWorksheet(worksheet, params, options)
+    : { outcome: "rejected", blocks: [], problem, durationMs: 0 };
+  const report = await writeReport(outDir, name, {
     worksheet,
     params,
     overridden,
     execution,
+    inputs,
     provenance: {
       worksheetPath: path,
       worksheetSha256: await sha256Hex(text),
       tapsheetVersion: tapsheetVersion(),
       denoVersion: Deno.version.deno,
       packages: packageVersions(),
-      date: runDate(options.date),
+      date,
     },
   });
   const checks = execution.blocks.flatMap((b) => b.exhibits).filter((e) => e.type === "check");
-  return {
+  const summary: RunSummary = {
     path,
     name,
-    report,
-    execution,
-    params,
+    reportDir: report.dir,
+    verdict: report.verdict,
+    outcome: execution.outcome,
     met: checks.filter((c) => c.type === "check" && c.result.met).length,
     checked: checks.length,
+    fingerprint: report.fingerprint,
+    skipped: false,
     durationMs: performance.now() - started,
   };
+  if (execution.problem) summary.problem = execution.problem;
+  return summary;
 }

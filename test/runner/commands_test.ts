@@ -1,0 +1,195 @@
+// The commands around `run`: check, verify, watch, skipping unchanged work,
+// the reports index, and atomic report writing.
+import assert from "node:assert/strict";
+import { join } from "node:path";
+import { fileURLToPath } from "node:url";
+
+const root = fileURLToPath(new URL("../../", import.meta.url));
+const cli = ["run", "-A", `--config=${join(root, "deno.json")}`, join(root, "runner", "cli.ts")];
+const decode = (b: Uint8Array) => new TextDecoder().decode(b);
+
+async function tapsheet(args: string[]) {
+  const out = await new Deno.Command(Deno.execPath(), {
+    args: [...cli, ...args],
+    env: { NO_COLOR: "1" },
+    stdout: "piped",
+    stderr: "piped",
+  }).output();
+  return { code: out.code, stdout: decode(out.stdout), stderr: decode(out.stderr) };
+}
+
+const sheet = (body: string, title = "Small sheet") =>
+  `---\ntitle: ${title}\ndocument: T-9\nrevision: A\nparams:\n  gain: 2\n---\n\nProse.\n\n\`\`\`ts\n${body}\n\`\`\`\n`;
+
+const passing = `import { sheet } from "tapsheet/sheet";
+import { judge } from "tapsheet";
+const gain = sheet.number("gain");
+sheet.check(judge("Gain", gain, { atMost: 3 }, "", { id: "R-1" }));
+sheet.figure({ kind: "line", title: "A line", series: [{ name: "y", x: [0, 1, 2], y: [0, gain, 0] }] });`;
+
+Deno.test("check: reports type errors at worksheet lines without running anything", async () => {
+  const dir = await Deno.makeTempDir();
+  try {
+    await Deno.writeTextFile(join(dir, "good.md"), sheet(passing));
+    await Deno.writeTextFile(
+      join(dir, "typo.md"),
+      sheet(
+        'import { sheet } from "tapsheet/sheet";\nconst n: number = sheet.text("gain");\nDeno.writeTextFileSync("x", "y");',
+      ),
+    );
+    const good = await tapsheet(["check", join(dir, "good.md")]);
+    assert.equal(good.code, 0, good.stderr);
+    const bad = await tapsheet(["check", join(dir, "typo.md")]);
+    assert.equal(bad.code, 2);
+    assert.match(
+      bad.stderr,
+      /typo\.md:13:7: Type 'string' is not assignable to type 'number'\. \(TS2322\)/,
+    );
+    assert.match(bad.stderr, /13 \| const n: number = sheet\.text\("gain"\);/);
+  } finally {
+    await Deno.remove(dir, { recursive: true });
+  }
+});
+
+Deno.test("run: unchanged inputs are not re-run; --force and a changed parameter re-run", async () => {
+  const dir = await Deno.makeTempDir();
+  const file = join(dir, "small.md");
+  const out = join(dir, "reports");
+  try {
+    await Deno.writeTextFile(file, sheet(passing));
+    const first = await tapsheet(["run", file, "--out", out]);
+    assert.equal(first.code, 0, first.stderr);
+    assert.doesNotMatch(first.stdout, /unchanged/);
+    const second = await tapsheet(["run", file, "--out", out]);
+    assert.match(second.stdout, /unchanged, not re-run/);
+    const forced = await tapsheet(["run", file, "--out", out, "--force"]);
+    assert.doesNotMatch(forced.stdout, /unchanged/);
+    const changed = await tapsheet(["run", file, "--out", out, "--set", "gain=4"]);
+    assert.equal(changed.code, 1, "gain 4 breaks the at-most-3 requirement");
+    assert.doesNotMatch(changed.stdout, /unchanged/);
+    // The reports index lists the report with its verdict.
+    const index = await Deno.readTextFile(join(out, "index.html"));
+    assert.match(index, /<a href="small\/index.html">Small sheet<\/a>/);
+    assert.match(index, /Not met/);
+  } finally {
+    await Deno.remove(dir, { recursive: true });
+  }
+});
+
+Deno.test("verify: matches an untouched report and catches a changed one", async () => {
+  const dir = await Deno.makeTempDir();
+  const file = join(dir, "small.md");
+  const out = join(dir, "reports");
+  try {
+    await Deno.writeTextFile(file, sheet(passing));
+    await tapsheet(["run", file, "--out", out, "--date", "2026-03-01"]);
+    const same = await tapsheet(["verify", file, "--out", out]);
+    assert.equal(same.code, 0, same.stdout + same.stderr);
+    assert.match(same.stdout, /matches/);
+    await Deno.writeTextFile(file, sheet(passing.replace("atMost: 3", "atMost: 2.5")));
+    const differs = await tapsheet(["verify", file, "--out", out]);
+    assert.equal(differs.code, 1);
+    assert.match(differs.stdout, /differs/);
+  } finally {
+    await Deno.remove(dir, { recursive: true });
+  }
+});
+
+Deno.test("run --json writes machine-readable results with durations", async () => {
+  const dir = await Deno.makeTempDir();
+  try {
+    await Deno.writeTextFile(join(dir, "a.md"), sheet(passing, "Sheet A"));
+    await Deno.writeTextFile(
+      join(dir, "b.md"),
+      sheet(passing.replace("atMost: 3", "atMost: 1"), "Sheet B"),
+    );
+    const r = await tapsheet([
+      "run",
+      dir,
+      "--out",
+      join(dir, "out"),
+      "--json",
+      join(dir, "results.json"),
+    ]);
+    assert.equal(r.code, 1);
+    assert.match(r.stdout, /Worksheet\s+Verdict\s+Met\s+Time/);
+    const results = JSON.parse(await Deno.readTextFile(join(dir, "results.json")));
+    assert.deepEqual(results.map((x: { verdict: string }) => x.verdict), ["met", "not met"]);
+    assert.ok(results.every((x: { durationMs: number }) => x.durationMs > 0));
+    assert.equal(results[1].requirementsMet, 0);
+  } finally {
+    await Deno.remove(dir, { recursive: true });
+  }
+});
+
+Deno.test("watch: a saved change to the worksheet re-runs it", async () => {
+  const dir = await Deno.makeTempDir();
+  const file = join(dir, "w.md");
+  const out = join(dir, "reports");
+  await Deno.writeTextFile(file, sheet(passing));
+  const child = new Deno.Command(Deno.execPath(), {
+    args: [...cli, "watch", file, "--out", out],
+    env: { NO_COLOR: "1" },
+    stdout: "piped",
+    stderr: "null",
+  }).spawn();
+  const reader = child.stdout.pipeThrough(new TextDecoderStream()).getReader();
+  let seen = "";
+  const waitFor = async (pattern: RegExp) => {
+    const deadline = Date.now() + 30_000;
+    while (!pattern.test(seen)) {
+      if (Date.now() > deadline) throw new Error(`timed out waiting for ${pattern}; saw:\n${seen}`);
+      const { value, done } = await reader.read();
+      if (done) throw new Error(`watch ended early; saw:\n${seen}`);
+      seen += value;
+    }
+  };
+  try {
+    await waitFor(/Watching/);
+    assert.match(seen, / met .*1\/1 requirements met/);
+    await Deno.writeTextFile(file, sheet(passing.replace("atMost: 3", "atMost: 1")));
+    await waitFor(/not met .*0\/1 requirements met/);
+  } finally {
+    child.kill("SIGTERM");
+    await reader.cancel().catch(() => {});
+    await child.status;
+    await Deno.remove(dir, { recursive: true });
+  }
+});
+
+Deno.test("run: killing a run at any moment leaves the previous report whole", async () => {
+  const dir = await Deno.makeTempDir();
+  const file = join(dir, "k.md");
+  const out = join(dir, "reports");
+  try {
+    await Deno.writeTextFile(file, sheet(passing));
+    await tapsheet(["run", file, "--out", out]);
+    const original = await Deno.readTextFile(join(out, "k", "index.html"));
+    for (const delayMs of [100, 300, 500, 700, 900, 1100]) {
+      const child = new Deno.Command(Deno.execPath(), {
+        args: [...cli, "run", file, "--out", out, "--force", "--set", "gain=2.5"],
+        stdout: "null",
+        stderr: "null",
+      }).spawn();
+      await new Promise((r) => setTimeout(r, delayMs));
+      try {
+        child.kill("SIGKILL");
+      } catch {
+        // it finished first: that is fine too
+      }
+      await child.status;
+      const now = await Deno.readTextFile(join(out, "k", "index.html"));
+      // Either the old report or a complete new one, never a mixture.
+      assert.ok(now === original || /<\/html>\n$/.test(now), `after ${delayMs} ms`);
+      const manifest = JSON.parse(await Deno.readTextFile(join(out, "k", "manifest.json")));
+      assert.ok(manifest.fingerprint);
+    }
+    // A later run cleans up whatever a killed run left behind.
+    await tapsheet(["run", file, "--out", out, "--force"]);
+    const leftovers = [];
+    for await (const e of Deno.readDir(out)) if (e.name.startsWith(".")) leftovers.push(e.name);
+    assert.deepEqual(leftovers, []);
+  } finally {
+    await Deno.remove(dir, { recursive: true });
+  }
+});
