@@ -25,7 +25,7 @@ export interface BandMeasurement {
 /** Options for {@link measureBands}. */
 export interface MeasureBandsOptions {
   /**
-   * Points on the 0 … fs/2 grid, a power of two plus one.
+   * Points on the 0 … fs/2 grid, ≥ 3 (a power of two plus one is fastest).
    * @default the smallest 2^k + 1 ≥ max(8193, 16·taps)
    */
   points?: number;
