@@ -77,13 +77,14 @@ export function splitConjugates(values: readonly Complex[]): { pairs: Complex[];
         best = j;
       }
     }
-    if (best < 0 || 2 * Math.abs(z.im) <= bestDistance) {
+    const tolerance = 1e-6 * Math.max(Math.hypot(z.re, z.im), 1e-300);
+    const lone = best < 0 || 2 * Math.abs(z.im) <= bestDistance;
+    if (lone && Math.abs(z.im) <= tolerance) {
       reals.push(z.re);
       continue;
     }
-    const w = values[best]!;
-    const tolerance = 1e-6 * Math.max(Math.hypot(z.re, z.im), 1e-300);
-    if (bestDistance > tolerance) {
+    const w = lone ? z : values[best]!;
+    if (lone || bestDistance > tolerance) {
       throw new TypeError(
         `Complex values must come in conjugate pairs, got ${show(z.re)}${z.im >= 0 ? "+" : ""}${
           show(z.im)

@@ -170,7 +170,9 @@ for name, (b, a) in [("Butterworth N=4 lowpass 0.3", signal.butter(4, 0.3)),
                      ("Chebyshev I N=3 0.5 dB lowpass 0.2", signal.cheby1(3, 0.5, 0.2)),
                      ("Elliptic N=4 highpass 0.4", signal.ellip(4, 1, 40, 0.4, btype="highpass"))]:
     fs = 2.0
-    freqs = np.linspace(0.0, 0.999, 60)
+    # Up to 0.9 of Nyquist: near the zeros on the unit circle at z = −1 SciPy's polynomial
+    # evaluation loses digits (it warns there), so the reference would not be accurate.
+    freqs = np.linspace(0.0, 0.9, 60)
     w, g = signal.group_delay((b, a), w=freqs, fs=fs)
     sos = signal.tf2sos(b, a)
     gd.append({"name": name, "reference": "scipy.signal.group_delay((b, a), fs=2)", "version": VERSION,
@@ -183,7 +185,7 @@ for fam, fn in [("butterworth", signal.buttord), ("chebyshev1", signal.cheb1ord)
                 ("chebyshev2", signal.cheb2ord), ("elliptic", signal.ellipord)]:
     for shape, wp, ws, gp, gs, fs in [
         ("lowpass", 1000.0, 1500.0, 1.0, 60.0, 8000.0),
-        ("lowpass", 3000.0, 3400.0, 0.1, 80.0, 48000.0),
+        ("lowpass", 3000.0, 3800.0, 0.5, 60.0, 48000.0),
         ("highpass", 500.0, 300.0, 0.5, 40.0, 8000.0),
         ("bandpass", [1000.0, 2000.0], [800.0, 2400.0], 0.5, 70.0, 48000.0),
         ("bandpass", [45.0, 60.0], [30.0, 80.0], 1.0, 40.0, 500.0),
