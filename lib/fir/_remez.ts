@@ -505,9 +505,7 @@ export function remezExchange(p: RemezProblem): RemezSolution {
   const fail = (what: string): never => {
     if (Math.abs(delta) < 1e-12 * scale) {
       throw new RemezFailure(
-        `The Remez exchange cannot resolve this specification: ${what}, with the equiripple deviation near ${
-          Math.abs(delta).toPrecision(2)
-        }, at the limit of double precision. The specification is over-met for this many taps: use fewer taps (or a narrower transition band)`,
+        `The Remez exchange cannot resolve this specification: the equiripple deviation it approaches is below 1e-12 of the band gains, the limit of double precision (${what}). The specification is over-met for this many taps: use fewer taps or a narrower transition band`,
       );
     }
     throw new RemezFailure(
@@ -549,8 +547,8 @@ export function remezExchange(p: RemezProblem): RemezSolution {
         break;
       }
       fail(
-        `at iteration ${iterations} the deviation fell from ${previous.toPrecision(4)} to ${
-          size.toPrecision(4)
+        `at iteration ${iterations} the deviation fell from ${previous.toExponential(3)} to ${
+          size.toExponential(3)
         }`,
       );
     }
