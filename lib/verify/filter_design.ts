@@ -82,22 +82,28 @@ function factors(design: FilterDesign): [ArrayLike<number>, ArrayLike<number>][]
   }
 }
 
-/** Σ c[k] e^(−jωk) by Horner's rule, with Σ k·c[k] e^(−jωk) alongside. */
+/**
+ * P = Σ c[k] u^k and R = Σ k·c[k] u^k = u·P′(u) at u = e^(−jω), by Horner's rule
+ * with the derivative carried alongside (no trigonometry inside the loop).
+ */
 function polyAndRamp(c: ArrayLike<number>, w: number): [number, number, number, number] {
-  let re = 0;
-  let im = 0;
-  let rre = 0;
-  let rim = 0;
-  for (let k = 0; k < c.length; k++) {
-    const v = c[k] as number;
-    const cr = Math.cos(w * k);
-    const ci = -Math.sin(w * k);
-    re += v * cr;
-    im += v * ci;
-    rre += k * v * cr;
-    rim += k * v * ci;
+  const ur = Math.cos(w);
+  const ui = -Math.sin(w);
+  let pr = 0;
+  let pi = 0;
+  let dr = 0;
+  let di = 0;
+  for (let k = c.length - 1; k >= 0; k--) {
+    // P′ ← P′·u + P, then P ← P·u + c[k].
+    const ndr = dr * ur - di * ui + pr;
+    di = dr * ui + di * ur + pi;
+    dr = ndr;
+    const npr = pr * ur - pi * ui + (c[k] as number);
+    pi = pr * ui + pi * ur;
+    pr = npr;
   }
-  return [re, im, rre, rim];
+  // R = u·P′
+  return [pr, pi, dr * ur - di * ui, dr * ui + di * ur];
 }
 
 /**
