@@ -19,7 +19,7 @@ const defaults: Record<FigureKind, { x: string; y: string }> = {
 };
 
 /** Most points kept per series; denser series keep each bucket's min and max. */
-const maxPoints = 1600;
+const maxPoints = 1200;
 
 /** Reduce a series to at most ~maxPoints, keeping each bucket's extremes in order. */
 export function thin(x: number[], y: number[]): { x: number[]; y: number[] } {
@@ -100,13 +100,18 @@ const config = {
 export function figureToVegaLite(figure: FigureExhibit): Spec {
   const kind = figure.kind in defaults ? figure.kind : "line";
   const labels = defaults[kind];
-  const xTitle = figure.xLabel ?? labels.x;
+  const scale = figure.normaliseTo ?? 1;
+  const xTitle = figure.xLabel ??
+    (figure.normaliseTo !== undefined && labels.x.startsWith("Frequency")
+      ? "Frequency (f / fs)"
+      : labels.x);
   const yTitle = figure.yLabel ?? labels.y;
   const names = figure.series.map((s) => s.name);
   const rows: { x: number; y: number; series: string }[] = [];
   const allY: number[] = [];
   for (const s of figure.series) {
     let { x, y } = s;
+    if (scale !== 1) x = x.map((v) => v / scale);
     if (kind !== "impulse" && kind !== "step" && kind !== "poleZero") ({ x, y } = thin(x, y));
     for (let i = 0; i < x.length; i++) {
       if (figure.xScale === "log" && !(x[i]! > 0)) continue; // a log axis cannot show f = 0
@@ -120,7 +125,9 @@ export function figureToVegaLite(figure: FigureExhibit): Spec {
     scale: { domain: names, range: palette.series.slice(0, Math.max(1, names.length)) },
     legend: names.length > 1 ? {} : null,
   };
-  const mask = figure.mask ?? [];
+  const mask = (figure.mask ?? []).map((m) =>
+    scale === 1 ? m : { ...m, from: m.from / scale, to: m.to / scale }
+  );
   const yDomain = figure.yDomain ??
     niceDomain([...allY, ...mask.flatMap((m) => [m.level, m.toLevel ?? m.level])], kind);
   const xValues = rows.map((r) => r.x);

@@ -1,10 +1,24 @@
 // vega-lite specification → SVG text, with no browser.
-import * as vega from "vega";
-import { compile } from "vega-lite";
+//
+// vega and vega-lite take a few hundred milliseconds to load, so they are
+// loaded on first use, and `preloadRenderer` lets the command line start that
+// load while the worksheet's child process runs on the other core.
+
+type Vega = typeof import("vega");
+type VegaLite = typeof import("vega-lite");
+
+let loading: Promise<[Vega, VegaLite]> | undefined;
+
+/** Start loading vega and vega-lite in the background (idempotent). */
+export function preloadRenderer(): Promise<[Vega, VegaLite]> {
+  loading ??= Promise.all([import("vega"), import("vega-lite")]);
+  return loading;
+}
 
 /** Render a vega-lite specification to SVG markup. */
 export async function vegaLiteToSvg(spec: Record<string, unknown>): Promise<string> {
-  const compiled = compile(spec as never).spec;
+  const [vega, vegaLite] = await preloadRenderer();
+  const compiled = vegaLite.compile(spec as never).spec;
   const view = new vega.View(vega.parse(compiled), { renderer: "none" });
   const svg = await view.toSVG();
   view.finalize();

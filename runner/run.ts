@@ -1,6 +1,7 @@
 // One worksheet from file to report: parse → execute → render.
 import { basename, dirname, join, relative } from "node:path";
 import { sha256Hex, writeReport } from "../render/write.ts";
+import { preloadRenderer } from "../render/svg.ts";
 import type { Manifest } from "../render/write.ts";
 import type { Verdict } from "../render/report.ts";
 import { type ExecuteOptions, executeWorksheet, projectRoot } from "./execute.ts";
@@ -163,6 +164,8 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
     return summary;
   }
 
+  // Load the plotting packages while the worksheet runs in its child process.
+  void preloadRenderer();
   const execution: ExecutionResult = problem === undefined
     ? await executeWorksheet(worksheet, params, options)
     : { outcome: "rejected", blocks: [], problem, durationMs: 0 };

@@ -26,6 +26,11 @@ export interface FigureSpec {
   yLabel?: string;
   /** Frequency axis scale. @default "linear" */
   xScale?: "linear" | "log";
+  /**
+   * Show the frequency axis as f / fs (cycles per sample) instead of Hz: give
+   * the sample rate here. Series and mask stay in Hz. @default Hz
+   */
+  normaliseTo?: number;
   /** Fixed y range. @default fitted to the data */
   yDomain?: [number, number];
 }
@@ -48,6 +53,13 @@ function toNumbers(values: ArrayLike<number>, what: string): number[] {
     throw new TypeError(`${what} must be an array of numbers`);
   }
   return Array.from(values, (v) => Number(v));
+}
+
+function positive(value: number): number {
+  if (!(typeof value === "number" && value > 0 && Number.isFinite(value))) {
+    throw new RangeError(`normaliseTo must be a sample rate above 0 Hz, got ${value}`);
+  }
+  return value;
 }
 
 function param(name: string): ParamValue {
@@ -117,6 +129,7 @@ export const sheet = {
       ...(spec.xLabel ? { xLabel: spec.xLabel } : {}),
       ...(spec.yLabel ? { yLabel: spec.yLabel } : {}),
       ...(spec.xScale ? { xScale: spec.xScale } : {}),
+      ...(spec.normaliseTo !== undefined ? { normaliseTo: positive(spec.normaliseTo) } : {}),
       ...(spec.yDomain ? { yDomain: [spec.yDomain[0], spec.yDomain[1]] } : {}),
     });
   },

@@ -91,6 +91,8 @@ export interface FigureExhibit {
   xLabel?: string;
   yLabel?: string;
   xScale?: "linear" | "log";
+  /** Show frequency as f / fs instead of Hz: the sample rate to divide by. */
+  normaliseTo?: number;
   yDomain?: [number, number];
 }
 
