@@ -39,7 +39,9 @@ export function applySections(
   state?: Float64Array,
 ): Float64Array {
   requireSections(sections);
-  requireSamples("Signal", signal, 0);
+  const typed = signal instanceof Float64Array;
+  // Typed input is checked inside the filter loop (x − x is NaN only for non-finite x).
+  if (!typed) requireSamples("Signal", signal, 0);
   const k = sections.length;
   if (state !== undefined && (!(state instanceof Float64Array) || state.length !== 2 * k)) {
     throw new TypeError(
@@ -48,9 +50,14 @@ export function applySections(
       }`,
     );
   }
-  const y = Float64Array.from(signal);
+  const y = typed ? (signal as Float64Array).slice() : Float64Array.from(signal);
   const memory = state ?? new Float64Array(2 * k);
-  runSections(sections, y, memory);
+  const saved = memory.slice();
+  const check = runSections(sections, y, memory);
+  if (check !== 0) {
+    memory.set(saved);
+    requireSamples("Signal", signal, 0);
+  }
   return y;
 }
 
