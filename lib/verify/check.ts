@@ -168,8 +168,9 @@ function delayOnGrid(
  *
  * Band requirements are evaluated on a dense grid that holds both band edges
  * exactly; the extreme found on the grid is then refined by golden-section
- * search between its grid neighbours. A design that is not stable gets an
- * infinite settling time (not met).
+ * search between its grid neighbours. A design that is not stable, or whose
+ * step response is still outside the settling band at the end of the
+ * simulated window (2^20 samples at most), gets an infinite settling time (not met).
  *
  * Source: the tolerance scheme of T. W. Parks and C. S. Burrus, Digital Filter
  * Design (Wiley, 1987), §1.3 (passband ripple, stopband attenuation, band edges);
@@ -381,18 +382,17 @@ export function checkRequirement(
         throw new RangeError(`${who}: tolerance must be between 0 and 1, got ${show(tolerance)}`);
       }
       const length = decayLength(design, tolerance * 1e-3);
-      if (!Number.isFinite(length)) {
-        return {
-          name,
-          ...(id === undefined ? {} : { id }),
-          achieved: Infinity,
-          limit: r.atMostSeconds,
-          relation: "atMost",
-          unit: "s",
-          margin: -Infinity,
-          met: false,
-        };
-      }
+      const notSettled = (): RequirementResult => ({
+        name,
+        ...(id === undefined ? {} : { id }),
+        achieved: Infinity,
+        limit: r.atMostSeconds,
+        relation: "atMost",
+        unit: "s",
+        margin: -Infinity,
+        met: false,
+      });
+      if (!Number.isFinite(length)) return notSettled();
       const s = stepResponseOf(design, length + 1);
       const dc = responseOf(design, [0], fs).re[0] as number;
       let scale = Math.abs(dc);
@@ -400,6 +400,8 @@ export function checkRequirement(
       const band = tolerance * scale;
       let last = -1;
       for (let n = 0; n < s.length; n++) if (Math.abs((s[n] as number) - dc) > band) last = n;
+      // Still outside the band at the end of the (capped) window: it has not settled.
+      if (last === s.length - 1) return notSettled();
       const extra: Parameters<typeof judge>[4] = { id };
       if (last >= 0) extra.worst = { at: last / fs, unit: "s" };
       return judge(name, (last + 1) / fs, { atMost: r.atMostSeconds }, "s", extra);

@@ -112,6 +112,14 @@ Deno.test("one-pole lowpass: settling time and stability margin in closed form",
   });
   assert.equal(unstable.met, false);
   assert.equal(unstable.achieved, Infinity);
+  // A pole so close to 1 that it settles only after ~3.9 million samples (beyond the 2^20-sample
+  // window) is reported as not settled rather than given a settling time it never reaches.
+  const slow = 1 - 1e-6;
+  const crawl = check({ kind: "rational", numerator: [1 - slow], denominator: [1, -slow] }, {
+    kind: "settlingTime",
+    atMostSeconds: 1e4,
+  });
+  assert.equal(crawl.achieved, Infinity);
   const neg = check({ kind: "rational", numerator: [1], denominator: [1, -1.1] }, {
     kind: "stabilityMargin",
     atLeast: 0,
