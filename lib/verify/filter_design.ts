@@ -5,7 +5,7 @@ import {
   requireSamples,
 } from "../_validate.ts";
 import type { Complex, Section } from "../types.ts";
-import { polynomialRoots } from "./_roots.ts";
+import { polynomialRoots } from "../poly/roots.ts";
 
 /**
  * A filter to verify, in the form it will be implemented:
@@ -234,9 +234,12 @@ export function groupDelayOf(
 /**
  * Poles of a design in the z-plane (an FIR filter has none away from the origin
  * and returns an empty list). Sections use the quadratic formula; a rational
- * design's denominator is solved by the Durand–Kerner iteration.
+ * design's denominator is solved by `polynomialRoots` of lib/poly (Aberth–Ehrlich
+ * iteration with Newton polishing).
  *
- * Source: E. Durand (1960), I. O. Kerner (1966), simultaneous polynomial root iteration.
+ * Source: O. Aberth, "Iteration methods for finding all zeros of a polynomial
+ * simultaneously", Math. Comp. 27 (1973); quadratic formula in the cancellation-free
+ * form of Press et al., Numerical Recipes, 3rd ed., §5.6.
  *
  * @param design The filter.
  * @returns The poles (complex), in no particular order.

@@ -86,7 +86,7 @@ Deno.test("pole radius of sections and of the expanded polynomial match numpy.ro
     poleRadius({ kind: "rational", numerator: [1], denominator: a }),
     c.poleRadius!,
     { rel: 1e-9 },
-    "Durand–Kerner on the 4th-order denominator",
+    "roots of the 4th-order denominator",
   );
   assert.equal(polesOf({ kind: "rational", numerator: [1], denominator: a }).length, 4);
 });
