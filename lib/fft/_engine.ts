@@ -135,23 +135,79 @@ export function inverseInterleaved(data: Float64Array, n: number): Float64Array 
   return out;
 }
 
+interface RealPlan {
+  /** cos(2πk/N), sin(2πk/N) for k = 0 … N/2, interleaved. */
+  twiddles: Float64Array;
+  /** Work buffer for the N/2-point complex transform. */
+  work: Float64Array;
+}
+
+const realPlans = new Map<number, RealPlan>();
+
+/** Twiddles and work buffer for a real transform of N points; cached per N. */
+function realPlan(n: number): RealPlan {
+  let t = realPlans.get(n);
+  if (t === undefined) {
+    const twiddles = new Float64Array(n + 2);
+    for (let k = 0; k <= n / 2; k++) {
+      twiddles[2 * k] = Math.cos((2 * Math.PI * k) / n);
+      twiddles[2 * k + 1] = Math.sin((2 * Math.PI * k) / n);
+    }
+    t = { twiddles, work: new Float64Array(n) };
+    if (realPlans.size >= maxPlans) {
+      const oldest = realPlans.keys().next().value;
+      if (oldest !== undefined) realPlans.delete(oldest);
+    }
+    realPlans.set(n, t);
+  }
+  return t;
+}
+
 /**
- * Half spectrum X[0 … ⌊N/2⌋] of N real samples, interleaved (2·(⌊N/2⌋+1) values).
- * `input` must hold exactly N samples.
+ * Half spectrum X[0 … ⌊N/2⌋] of N real samples, written into `re` and `im`
+ * (each ⌊N/2⌋ + 1 long). `input` must hold exactly N samples.
+ *
+ * Powers of two ≥ 4: the N real samples are read as N/2 complex values
+ * z[n] = x[2n] + j·x[2n+1], transformed by fft.js, and split into the spectra
+ * of the even and odd samples, X[k] = E[k] + e^(−j2πk/N)·O[k] with
+ * E[k] = (Z[k] + Z*[N/2−k])/2 and O[k] = (Z[k] − Z*[N/2−k])/(2j)
+ * (Oppenheim & Schafer, Discrete-Time Signal Processing, 3rd ed., Problem 8.60;
+ * common practice). Other lengths: a complex transform of the real signal.
  */
-export function realHalfInterleaved(input: Float64Array, n: number): Float64Array {
+export function realHalf(input: Float64Array, n: number, re: Float64Array, im: Float64Array): void {
   const half = Math.floor(n / 2);
-  if (n >= 2 && powerOfTwo(n)) {
-    const out = new Float64Array(2 * n);
-    kernel(n).realTransform(out, input);
-    out[1] = 0;
-    out[n + 1] = 0;
-    return out.subarray(0, 2 * half + 2);
+  if (n >= 4 && powerOfTwo(n)) {
+    const m = n / 2;
+    const { twiddles: t, work: z } = realPlan(n);
+    kernel(m).transform(z, input);
+    re[0] = z[0]! + z[1]!;
+    im[0] = 0;
+    re[m] = z[0]! - z[1]!;
+    im[m] = 0;
+    for (let k = 1; k < m; k++) {
+      const ar = z[2 * k]!;
+      const ai = z[2 * k + 1]!;
+      const br = z[2 * (m - k)]!;
+      const bi = -z[2 * (m - k) + 1]!;
+      const er = 0.5 * (ar + br);
+      const ei = 0.5 * (ai + bi);
+      const or = 0.5 * (ai - bi);
+      const oi = -0.5 * (ar - br);
+      const c = t[2 * k]!;
+      const s = t[2 * k + 1]!;
+      // e^(−j2πk/N)·O = (c − js)(or + j·oi)
+      re[k] = er + or * c + oi * s;
+      im[k] = ei + oi * c - or * s;
+    }
+    return;
   }
   const data = new Float64Array(2 * n);
   for (let i = 0; i < n; i++) data[2 * i] = input[i]!;
   const full = forwardInterleaved(data, n);
-  full[1] = 0;
-  if (n % 2 === 0) full[n + 1] = 0;
-  return full.subarray(0, 2 * half + 2);
+  for (let k = 0; k <= half; k++) {
+    re[k] = full[2 * k]!;
+    im[k] = full[2 * k + 1]!;
+  }
+  im[0] = 0;
+  if (n % 2 === 0) im[half] = 0;
 }

@@ -1,5 +1,5 @@
 import { requireInteger, requireSamples } from "../_validate.ts";
-import { inverseInterleaved, realHalfInterleaved } from "./_engine.ts";
+import { inverseInterleaved, realHalf } from "./_engine.ts";
 import type { ComplexSamples } from "./complex_fft.ts";
 
 /** Options for {@link realFft}. */
@@ -17,8 +17,9 @@ export interface RealFftOptions {
  * X[k] = Σ_{n=0}^{N−1} x[n] e^(−j2πkn/N), k = 0 … ⌊N/2⌋ (the other bins are
  * the complex conjugates X[N−k] = X[k]*). Unscaled.
  *
- * Powers of two use fft.js's real radix-4 transform; other lengths use
- * Bluestein's chirp-z algorithm.
+ * Powers of two ≥ 4 run as one fft.js complex transform of N/2 points (even
+ * samples as real parts, odd samples as imaginary parts) followed by the
+ * even/odd split; other lengths use Bluestein's chirp-z algorithm.
  *
  * Source: Oppenheim & Schafer, Discrete-Time Signal Processing, 3rd ed., §8.6
  * (symmetry of the DFT of a real sequence); Bluestein 1970.
@@ -38,7 +39,9 @@ export interface RealFftOptions {
  * ```
  */
 export function realFft(signal: ArrayLike<number>, options: RealFftOptions = {}): ComplexSamples {
-  requireSamples("Signal", signal);
+  if (!(signal instanceof Float64Array) || !allFinite(signal) || signal.length === 0) {
+    requireSamples("Signal", signal);
+  }
   const size = options.size ?? signal.length;
   requireInteger("Transform size", size, signal.length);
   let input: Float64Array;
@@ -48,15 +51,18 @@ export function realFft(signal: ArrayLike<number>, options: RealFftOptions = {})
     input = new Float64Array(size);
     input.set(signal);
   }
-  const half = realHalfInterleaved(input, size);
   const bins = Math.floor(size / 2) + 1;
   const re = new Float64Array(bins);
   const im = new Float64Array(bins);
-  for (let i = 0; i < bins; i++) {
-    re[i] = half[2 * i]!;
-    im[i] = half[2 * i + 1]!;
-  }
+  realHalf(input, size, re, im);
   return { re, im };
+}
+
+/** True when every value is finite: x·0 is 0 for finite x and NaN otherwise. */
+function allFinite(x: Float64Array): boolean {
+  let probe = 0;
+  for (let i = 0; i < x.length; i++) probe += x[i]! * 0;
+  return probe === 0;
 }
 
 /**

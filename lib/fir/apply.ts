@@ -54,7 +54,7 @@ export interface ApplyFirOptions {
  * Taps from which overlap-add beats the direct form on long signals, measured
  * with bench/analysis_bench.ts on the development machine (Deno 2.9, x86-64).
  */
-const crossoverTaps = 48;
+const crossoverTaps = 40;
 
 /** True when overlap-add is expected to be faster than the direct form. */
 function prefersOverlapAdd(taps: number, signalLength: number): boolean {
@@ -65,7 +65,7 @@ function prefersOverlapAdd(taps: number, signalLength: number): boolean {
  * Filter a signal with an FIR filter, y[n] = Σ_{k=0}^{N−1} h[k]·x[n−k]
  * (x = 0 before the first sample), choosing the algorithm: the direct form
  * ({@link applyFirDirect}) for short filters or short signals, FFT overlap-add
- * ({@link applyFirOverlapAdd}) from 48 taps on signals at least twice the
+ * ({@link applyFirOverlapAdd}) from 40 taps on signals at least twice the
  * filter length. Both give the same output up to rounding (about 1e-15
  * relative to Σ|h|·max|x|).
  *

@@ -139,8 +139,9 @@ Deno.test("realSpectrum keeps its power-of-two behaviour", () => {
   const x = pseudoRandom(100, 5);
   const a = realSpectrum(x, 128);
   const b = realFft(x, { size: 128 });
-  assertClose(a.re, b.re, { abs: 1e-15 }, "re");
-  assertClose(a.im, b.im, { abs: 1e-15 }, "im");
+  // two different pow-2 algorithms (fft.js real transform, packed complex transform)
+  assertClose(a.re, b.re, { abs: 1e-13 }, "re");
+  assertClose(a.im, b.im, { abs: 1e-13 }, "im");
 });
 
 Deno.test("zero-padding helpers and bin frequencies", () => {

@@ -1,0 +1,56 @@
+#!/usr/bin/python3
+"""Time the analysis workloads with Debian's NumPy/SciPy; the same workloads as
+bench/side_by_side_analysis.ts runs in Deno. Prints one JSON object of
+millisecond timings (min and median over repeats) on stdout.
+
+Run by bench/side_by_side_analysis.ts, or alone:
+    /usr/bin/python3 bench/side_by_side_analysis.py
+"""
+import json
+import sys
+import time
+
+import numpy as np
+import scipy
+import scipy.signal as sig
+
+
+def timing(fn, repeats, inner=1):
+    """Minimum and median per call over `repeats` batches of `inner` calls, in ms,
+    both by wall clock and by the process's CPU time (time.process_time_ns), which
+    does not count the time spent waiting for a core on a shared machine."""
+    fn()  # warm-up
+    wall = []
+    cpu = []
+    for _ in range(repeats):
+        t = time.perf_counter()
+        c = time.process_time_ns()
+        for _ in range(inner):
+            fn()
+        cpu.append((time.process_time_ns() - c) / 1e6 / inner)
+        wall.append((time.perf_counter() - t) * 1e3 / inner)
+    wall.sort()
+    cpu.sort()
+    return {"min": wall[0], "median": wall[len(wall) // 2],
+            "cpuMin": cpu[0], "cpuMedian": cpu[len(cpu) // 2]}
+
+
+def main():
+    rng = np.random.default_rng(1)
+    x16 = rng.standard_normal(1 << 16)
+    x6 = rng.standard_normal(1_000_000)
+    h = rng.standard_normal(255)
+    one = np.array([1.0])
+    result = {
+        "versions": {"numpy": np.__version__, "scipy": scipy.__version__},
+        # source: numpy.fft.rfft (pocketfft)
+        "realFft65536": timing(lambda: np.fft.rfft(x16), repeats=40, inner=20),
+        # source: scipy.signal.lfilter, direct-form filter routine, a = [1]
+        "fir255x1e6": timing(lambda: sig.lfilter(h, one, x6), repeats=7),
+    }
+    json.dump(result, sys.stdout)
+    print()
+
+
+if __name__ == "__main__":
+    main()

@@ -1,0 +1,140 @@
+// Side-by-side timing of the analysis workloads against Debian's NumPy/SciPy.
+//   deno run --allow-read --allow-run --allow-env bench/side_by_side_analysis.ts
+// Runs the Deno workloads here, bench/side_by_side_analysis.py with
+// /usr/bin/python3 (OPENBLAS_CORETYPE and OPENBLAS_L2_SIZE unset for that
+// command only), and prints our time ÷ theirs. Both sides report the minimum
+// and the median over batches, by wall clock and by process CPU time; on a
+// shared machine the CPU-time figures are the steadier ones (they leave out
+// time spent waiting for a core). Targets (issue 3): real FFT of 2^16 ≤ 1.5; FIR 255 taps on
+// 1e6 samples ≤ 1/3 (at least 3× faster than the reference's direct form).
+import process from "node:process";
+import { realFft } from "../lib/fft/mod.ts";
+import { applyFir, applyFirDirect } from "../lib/fir/apply.ts";
+import { whiteNoise } from "../lib/signal/noise.ts";
+
+interface Timing {
+  /** Wall-clock milliseconds per call, minimum and median over batches. */
+  min: number;
+  median: number;
+  /** CPU milliseconds per call (all threads of the process), minimum and median. */
+  cpuMin: number;
+  cpuMedian: number;
+}
+
+function cpuMs(): number {
+  const u = process.cpuUsage();
+  return (u.user + u.system) / 1000;
+}
+
+function timing(fn: () => unknown, repeats: number, inner = 1): Timing {
+  fn();
+  const wall: number[] = [];
+  const cpu: number[] = [];
+  for (let r = 0; r < repeats; r++) {
+    const t = performance.now();
+    const c = cpuMs();
+    for (let i = 0; i < inner; i++) fn();
+    cpu.push((cpuMs() - c) / inner);
+    wall.push((performance.now() - t) / inner);
+  }
+  wall.sort((a, b) => a - b);
+  cpu.sort((a, b) => a - b);
+  const mid = Math.floor(repeats / 2);
+  return { min: wall[0]!, median: wall[mid]!, cpuMin: cpu[0]!, cpuMedian: cpu[mid]! };
+}
+
+const x16 = whiteNoise(1 << 16, { seed: 1 });
+const x6 = whiteNoise(1_000_000, { seed: 2 });
+const h = whiteNoise(255, { seed: 3 });
+
+/** Element-wise minimum of the min and median figures of several rounds. */
+function best(a: Timing, b: Timing): Timing {
+  return {
+    min: Math.min(a.min, b.min),
+    median: Math.min(a.median, b.median),
+    cpuMin: Math.min(a.cpuMin, b.cpuMin),
+    cpuMedian: Math.min(a.cpuMedian, b.cpuMedian),
+  };
+}
+
+const env = Deno.env.toObject();
+delete env.OPENBLAS_CORETYPE;
+delete env.OPENBLAS_L2_SIZE;
+const script = new URL("./side_by_side_analysis.py", import.meta.url).pathname;
+
+interface Theirs {
+  versions: Record<string, string>;
+  realFft65536: Timing;
+  fir255x1e6: Timing;
+}
+
+async function runTheirs(): Promise<Theirs> {
+  const run = await new Deno.Command("/usr/bin/python3", {
+    args: [script],
+    env,
+    clearEnv: true,
+    stdout: "piped",
+    stderr: "inherit",
+  }).output();
+  if (!run.success) throw new Error(`side_by_side_analysis.py failed with code ${run.code}`);
+  return JSON.parse(new TextDecoder().decode(run.stdout)) as Theirs;
+}
+
+function runOurs(): Record<"realFft65536" | "fir255x1e6" | "fir255x1e6Direct", Timing> {
+  return {
+    realFft65536: timing(() => realFft(x16), 40, 20),
+    fir255x1e6: timing(() => applyFir(h, x6), 7),
+    fir255x1e6Direct: timing(() => applyFirDirect(h, x6), 5),
+  };
+}
+
+// Two interleaved rounds (ours, theirs, ours, theirs), keeping the better figures of
+// each side, so that a burst of load from other processes hits both sides alike.
+let ours = runOurs();
+let theirs = await runTheirs();
+const ours2 = runOurs();
+const theirs2 = await runTheirs();
+ours = {
+  realFft65536: best(ours.realFft65536, ours2.realFft65536),
+  fir255x1e6: best(ours.fir255x1e6, ours2.fir255x1e6),
+  fir255x1e6Direct: best(ours.fir255x1e6Direct, ours2.fir255x1e6Direct),
+};
+theirs = {
+  versions: theirs.versions,
+  realFft65536: best(theirs.realFft65536, theirs2.realFft65536),
+  fir255x1e6: best(theirs.fir255x1e6, theirs2.fir255x1e6),
+};
+
+const rows: [string, Timing, Timing, string][] = [
+  ["real FFT 2^16: realFft vs numpy.fft.rfft", ours.realFft65536, theirs.realFft65536, "≤ 1.5"],
+  [
+    "FIR 255 taps × 1e6: applyFir (auto → overlap-add) vs scipy.signal.lfilter",
+    ours.fir255x1e6,
+    theirs.fir255x1e6,
+    "≤ 0.333",
+  ],
+  [
+    "FIR 255 taps × 1e6: applyFirDirect vs scipy.signal.lfilter",
+    ours.fir255x1e6Direct,
+    theirs.fir255x1e6,
+    "(direct form, no target)",
+  ],
+];
+console.log(
+  `Deno ${Deno.version.deno}; NumPy ${theirs.versions.numpy}, SciPy ${theirs.versions.scipy}`,
+);
+for (const [name, a, b, target] of rows) {
+  const f = (v: number): string => v.toFixed(3);
+  console.log(
+    `${name}  (target ${target})\n` +
+      `  wall ms: ours min ${f(a.min)} median ${f(a.median)}; theirs min ${f(b.min)} median ${
+        f(b.median)
+      }\n` +
+      `  CPU ms:  ours min ${f(a.cpuMin)} median ${f(a.cpuMedian)}; theirs min ${
+        f(b.cpuMin)
+      } median ${f(b.cpuMedian)}\n` +
+      `  ratio ours ÷ theirs: wall min ${f(a.min / b.min)}, wall median ${
+        f(a.median / b.median)
+      }, CPU min ${f(a.cpuMin / b.cpuMin)}, CPU median ${f(a.cpuMedian / b.cpuMedian)}`,
+  );
+}
