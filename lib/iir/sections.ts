@@ -433,3 +433,39 @@ export function polynomialToZerosPoles(
   const poles = polynomialRoots(denominator);
   return { zeros, poles, gain: lead(numerator) / lead(denominator) };
 }
+
+/**
+ * Second-order sections from a numerator and denominator (highest power
+ * first, i.e. ascending powers of z⁻¹): the polynomials' roots by
+ * Aberth–Ehrlich iteration, then the pairing, ordering and gain placement of
+ * {@link zerosPolesToSections}. Avoids ever filtering with the fragile
+ * high-order direct form. An m-fold root (e.g. the N-fold zero at z = −1 of
+ * a Butterworth lowpass) is only determined to about ε^(1/m) by the
+ * polynomial's coefficients, so keep designs as sections where you can.
+ *
+ * Source: L. B. Jackson, Digital Filters and Signal Processing, 3rd ed.,
+ * §11.3; roots as in polynomialRoots.
+ *
+ * @param numerator b[0..M], at least one non-zero value.
+ * @param denominator a[0..N], a[0] ≠ 0.
+ * @param options Gain placement.
+ * @returns The sections.
+ * @throws {TypeError} When a coefficient is not finite.
+ * @throws {RangeError} When a[0] = 0 or a polynomial is all zeros.
+ * @example
+ * ```ts
+ * import { polynomialToSections } from "./sections.ts";
+ * // (1 + z⁻¹)² / (1 − z⁻¹ + 0.5z⁻²) as one biquad.
+ * const [s] = polynomialToSections([1, 2, 1], [1, -1, 0.5], { gainPlacement: "first" });
+ * if (Math.abs(s!.a1 + 1) > 1e-15 || Math.abs(s!.b1 - 2) > 1e-12) throw new Error("biquad");
+ * ```
+ */
+export function polynomialToSections(
+  numerator: ArrayLike<number>,
+  denominator: ArrayLike<number>,
+  options: SectionOptions = {},
+): Section[] {
+  requireSamples("Denominator", denominator);
+  if (denominator[0] === 0) throw new RangeError("Denominator a[0] must not be 0, got 0");
+  return zerosPolesToSections(polynomialToZerosPoles(numerator, denominator), options);
+}

@@ -1,5 +1,6 @@
 import assert from "node:assert";
 import {
+  polynomialToSections,
   polynomialToZerosPoles,
   sectionsToPolynomial,
   sectionsToZerosPoles,
@@ -152,4 +153,27 @@ Deno.test("conversions reject malformed input", () => {
   );
   assertThrowsMatching(() => sectionsToPolynomial([]), RangeError, /at least 1 section/);
   assertThrowsMatching(() => polynomialToZerosPoles([0], [1]), RangeError, /non-zero/);
+});
+
+Deno.test("polynomial → sections reproduces the response of an order-8 design", () => {
+  // Elliptic: all zeros simple. (An m-fold root, like the 4-fold notch zeros of a Chebyshev I
+  // bandstop, is only determined to about ε^(1/m) by its polynomial — the reason to keep sections.)
+  const d = designIir({
+    family: "elliptic",
+    response: "lowpass",
+    order: 8,
+    fs: 1000,
+    edges: 100,
+    passbandRippleDb: 0.5,
+    stopbandAttenuationDb: 60,
+  });
+  const { numerator, denominator } = sectionsToPolynomial(d.sections);
+  const back = polynomialToSections(numerator, denominator);
+  assert.equal(back.length, 4);
+  const f = [0, 50, 100, 150, 200, 300, 500];
+  const a = sectionsResponse(back, f, 1000);
+  const b = sectionsResponse(d.sections, f, 1000);
+  assertClose(a.re, b.re, { abs: 1e-9 }, "re");
+  assertClose(a.im, b.im, { abs: 1e-9 }, "im");
+  assertThrowsMatching(() => polynomialToSections([1], [0, 1]), RangeError, /a\[0\] must not be 0/);
 });
