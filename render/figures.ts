@@ -185,7 +185,7 @@ export function figureToVegaLite(figure: FigureExhibit): Spec {
     autosize: { type: "fit", contains: "padding" },
     config,
     layer: layers,
-    resolve: { scale: { color: "independent" } },
+    ...(square ? {} : { resolve: { scale: { color: "independent" } } }),
   };
 }
 
@@ -264,7 +264,10 @@ function poleZeroLayers(figure: FigureExhibit): Spec[] {
         color: {
           field: "series",
           type: "nominal",
-          scale: { range: palette.series.slice(0, 2) },
+          scale: {
+            domain: figure.series.map((s) => s.name),
+            range: palette.series.slice(0, Math.max(1, figure.series.length)),
+          },
           legend: {},
         },
         shape: {
