@@ -1,12 +1,33 @@
 import { requireInteger, requireSamples } from "../_validate.ts";
 import { kernel } from "./_fftjs.ts";
 
-/** True when n is a power of two (1, 2, 4, ...). */
+/**
+ * True when n is a power of two (1, 2, 4, …), the lengths fft.js transforms directly.
+ *
+ * @param n Any number.
+ * @returns Whether n is an integer 2^k, k ≥ 0.
+ * @example
+ * ```ts
+ * import { isPowerOfTwo } from "./fft.ts";
+ * if (!isPowerOfTwo(1024) || isPowerOfTwo(1000)) throw new Error("1024 yes, 1000 no");
+ * ```
+ */
 export function isPowerOfTwo(n: number): boolean {
   return Number.isInteger(n) && n >= 1 && (n & (n - 1)) === 0;
 }
 
-/** The smallest power of two that is >= n. */
+/**
+ * The smallest power of two that is ≥ n.
+ *
+ * @param n A length, an integer ≥ 1.
+ * @returns 2^⌈log2 n⌉.
+ * @throws {RangeError} When n is not an integer ≥ 1.
+ * @example
+ * ```ts
+ * import { nextPowerOfTwo } from "./fft.ts";
+ * if (nextPowerOfTwo(1000) !== 1024 || nextPowerOfTwo(1) !== 1) throw new Error("1000 → 1024");
+ * ```
+ */
 export function nextPowerOfTwo(n: number): number {
   requireInteger("Length", n, 1);
   let p = 1;
