@@ -49,6 +49,14 @@ for (const [n, x] of signals) {
       applySections(sections, x);
     },
   });
+  const out = new Float64Array(n);
+  Deno.bench({
+    name: `applySections into a reused output (${n})`,
+    group,
+    fn() {
+      applySections(sections, x, undefined, out);
+    },
+  });
   Deno.bench({
     name: `applyIir, order-8 polynomial (${n})`,
     group,

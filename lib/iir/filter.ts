@@ -20,8 +20,11 @@ import { runSections } from "./_run.ts";
  * @param state Optional filter memory, 2 values per section ([s1, s2] of
  *   section 0, then section 1, …), read and updated in place; see
  *   {@link createSectionState}.
- * @returns Output samples, same length as `signal`.
- * @throws {TypeError} When a coefficient or sample is not finite, or the state has the wrong length.
+ * @param output Optional Float64Array of the signal's length to write the
+ *   result into (it may be the signal itself, for in-place filtering); saves
+ *   allocating a new array per call when streaming long signals.
+ * @returns Output samples, same length as `signal` (`output` when given).
+ * @throws {TypeError} When a coefficient or sample is not finite, or the state or output has the wrong length.
  * @example
  * ```ts
  * import { applySections } from "./filter.ts";
@@ -37,6 +40,7 @@ export function applySections(
   sections: readonly Section[],
   signal: ArrayLike<number>,
   state?: Float64Array,
+  output?: Float64Array,
 ): Float64Array {
   requireSections(sections);
   const typed = signal instanceof Float64Array;
@@ -50,7 +54,22 @@ export function applySections(
       }`,
     );
   }
-  const y = typed ? (signal as Float64Array).slice() : Float64Array.from(signal);
+  if (
+    output !== undefined && (!(output instanceof Float64Array) || output.length !== signal.length)
+  ) {
+    throw new TypeError(
+      `Output must be a Float64Array as long as the signal (${signal.length}), got ${
+        output instanceof Float64Array ? `length ${output.length}` : typeof output
+      }`,
+    );
+  }
+  let y: Float64Array;
+  if (output === undefined) {
+    y = typed ? (signal as Float64Array).slice() : Float64Array.from(signal);
+  } else {
+    y = output;
+    if (output !== signal) y.set(signal as ArrayLike<number>);
+  }
   const memory = state ?? new Float64Array(2 * k);
   const saved = memory.slice();
   const check = runSections(sections, y, memory);

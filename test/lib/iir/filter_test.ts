@@ -74,3 +74,31 @@ Deno.test("applySections / applyIir reject bad input", () => {
   );
   assert.equal(applySections(s, []).length, 0);
 });
+
+Deno.test("applySections writes into a given output array, also in place", () => {
+  const c = fixture.filtering[1];
+  const s = designIir(c.design as IirDesignOptions).sections;
+  const x = Float64Array.from(c.input as number[]);
+  const expected = applySections(s, x);
+  const out = new Float64Array(x.length);
+  assert.equal(applySections(s, x, undefined, out), out);
+  assert.deepEqual([...out], [...expected]);
+  const inPlace = x.slice();
+  applySections(s, inPlace, undefined, inPlace);
+  assert.deepEqual([...inPlace], [...expected]);
+  assertThrowsMatching(
+    () => applySections(s, x, undefined, new Float64Array(3)),
+    TypeError,
+    /as long as the signal \(2000\), got length 3/,
+  );
+  // A non-finite sample is reported, and the state is left as it was.
+  const state = createSectionState(s);
+  const bad = x.slice();
+  bad[1500] = NaN;
+  assertThrowsMatching(
+    () => applySections(s, bad, state),
+    TypeError,
+    /Signal\[1500\] must be a finite number, got NaN/,
+  );
+  assert.ok(state.every((v) => v === 0));
+});
