@@ -118,7 +118,7 @@ async function commandRun(args: string[]): Promise<number> {
   if (paramsFile !== undefined) {
     const parsed = parseYaml(await Deno.readTextFile(paramsFile));
     if (parsed === null || typeof parsed !== "object" || Array.isArray(parsed)) {
-      throw new UsageError(`Parameters file ${paramsFile} must hold name: value pairs`);
+      throw new UsageError(messages.cli.badParamsFile(paramsFile));
     }
     paramsFromFile = parsed as Record<string, unknown>;
   }
@@ -210,9 +210,7 @@ function printSummary(summaries: RunSummary[]): void {
 async function commandCheck(args: string[]): Promise<number> {
   const { positional, options } = parseArgs(args, [], ["--help"]);
   if (options.has("--help")) {
-    console.log(
-      "tapsheet check <worksheet.md or folder>...\n\nType-checks each worksheet's code without running it. Exit code 0 when all pass, 2 otherwise.",
-    );
+    console.log(messages.cli.checkUsage);
     return 0;
   }
   let failed = 0;
@@ -295,30 +293,24 @@ async function commandNew(args: string[]): Promise<number> {
   }
   available.sort();
   if (options.has("--help") || positional.length !== 2) {
-    console.log(
-      `tapsheet new <template> <file.md>\n\nCopies a template worksheet to a new file to edit.\nTemplates: ${
-        available.join(", ") || "none"
-      }`,
-    );
+    console.log(messages.cli.newUsage(available));
     return options.has("--help") ? 0 : exitCodes.failed;
   }
   const [template, target] = positional as [string, string];
   if (!available.includes(template)) {
-    throw new UsageError(`No template '${template}'. Templates: ${available.join(", ")}`);
+    throw new UsageError(messages.cli.noTemplate(template, available));
   }
   if (!options.has("--force")) {
     try {
       await Deno.stat(target);
-      throw new UsageError(`${target} exists already; pass --force to overwrite it`);
+      throw new UsageError(messages.cli.exists(target));
     } catch (e) {
       if (e instanceof UsageError) throw e;
     }
   }
   await Deno.mkdir(dirname(resolve(target)), { recursive: true });
   await Deno.copyFile(join(templates, `${template}.md`), target);
-  console.log(
-    `Wrote ${target} from template '${template}'. Edit its front matter and prose, then:\n  deno task tapsheet run ${target}`,
-  );
+  console.log(messages.cli.wroteTemplate(target, template));
   return 0;
 }
 
@@ -326,9 +318,7 @@ async function commandNew(args: string[]): Promise<number> {
 async function commandVerify(args: string[]): Promise<number> {
   const { positional, options } = parseArgs(args, ["--out"], ["--help"]);
   if (options.has("--help") || positional.length !== 1) {
-    console.log(
-      "tapsheet verify <worksheet.md> [--out DIR]\n\nRe-runs the worksheet with the parameters and date recorded in its report and says whether the new report's fingerprint matches. Exit code 0 when it matches, 1 when it does not, 2 on error.",
-    );
+    console.log(messages.cli.verifyUsage);
     return options.has("--help") ? 0 : exitCodes.failed;
   }
   const file = positional[0]!;
@@ -343,7 +333,7 @@ async function commandVerify(args: string[]): Promise<number> {
   try {
     manifest = JSON.parse(await Deno.readTextFile(manifestPath));
   } catch {
-    throw new UsageError(`No report to verify: ${manifestPath} is missing or unreadable`);
+    throw new UsageError(messages.cli.noReport(manifestPath));
   }
   const scratch = await Deno.makeTempDir({ prefix: "tapsheet-verify-" });
   try {
@@ -398,7 +388,7 @@ async function commandWatch(args: string[]): Promise<number> {
     }
   };
   await once();
-  console.log(`Watching ${dirname(resolve(file))} for changes (Ctrl-C to stop)`);
+  console.log(messages.cli.watching(dirname(resolve(file))));
   const watcher = Deno.watchFs(dirname(resolve(file)), { recursive: true });
   let timer: ReturnType<typeof setTimeout> | undefined;
   let running = Promise.resolve();

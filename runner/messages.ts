@@ -89,6 +89,28 @@ Exit codes:
   0  every requirement met
   1  a requirement is not met
   2  a worksheet failed (error, timeout, sandbox refusal) or bad command-line use`,
+    checkUsage: `tapsheet check <worksheet.md or folder>...
+
+Type-checks each worksheet's code without running it, and applies the
+sandbox's import rules. Exit code 0 when all pass, 2 otherwise.`,
+    newUsage: (templates: string[]) =>
+      `tapsheet new <template> <file.md> [--force]
+
+Copies a template worksheet to a new file for you to edit.
+Templates: ${templates.join(", ") || "none"}`,
+    noTemplate: (name: string, templates: string[]) =>
+      `No template '${name}'. Templates: ${templates.join(", ")}`,
+    exists: (path: string) => `${path} exists already; pass --force to overwrite it`,
+    wroteTemplate: (path: string, template: string) =>
+      `Wrote ${path} from template '${template}'. Edit its front matter and prose, then:\n  deno task tapsheet run ${path}`,
+    verifyUsage: `tapsheet verify <worksheet.md> [--out DIR]
+
+Re-runs the worksheet with the parameters and date recorded in its report and
+says whether the new report's fingerprint matches the existing one.
+Exit code 0 when it matches, 1 when it does not, 2 on error.`,
+    noReport: (manifest: string) => `No report to verify: ${manifest} is missing or unreadable`,
+    watching: (dir: string) => `Watching ${dir} for changes (Ctrl-C to stop)`,
+    badParamsFile: (path: string) => `Parameters file ${path} must hold name: value pairs`,
     watchUsage: `tapsheet watch <worksheet.md> [--out DIR] [--set name=value]... [--date YYYY-MM-DD]
 
 Runs the worksheet, then runs it again whenever it or a file under its data/
