@@ -1,8 +1,19 @@
 import type { Complex, ZerosPolesGain } from "../types.ts";
 import { requirePositive } from "../_validate.ts";
 import { abs, add, div, mul, neg, product, scale, sqrt, sub } from "../poly/_complex.ts";
+import { requireZerosPolesGain } from "./_sections.ts";
 
-function relativeDegree(zpk: ZerosPolesGain): number {
+function relativeDegree(zpk: ZerosPolesGain, noneAtOrigin = false): number {
+  requireZerosPolesGain(zpk);
+  if (noneAtOrigin) {
+    for (const [name, list] of [["zero", zpk.zeros], ["pole", zpk.poles]] as const) {
+      if (list.some((x) => x.re === 0 && x.im === 0)) {
+        throw new RangeError(
+          `A lowpass prototype for this transformation must have no ${name} at s = 0, got one`,
+        );
+      }
+    }
+  }
   const d = zpk.poles.length - zpk.zeros.length;
   if (d < 0) {
     throw new RangeError(
@@ -70,7 +81,8 @@ export function lowpassToLowpass(prototype: ZerosPolesGain, w0: number): ZerosPo
  * @param prototype Analog lowpass zeros, poles and gain; no zero or pole at 0.
  * @param w0 Cutoff in rad/s, > 0.
  * @returns The analog highpass.
- * @throws {RangeError} When w0 ≤ 0 or there are more zeros than poles.
+ * @throws {RangeError} When w0 ≤ 0, there are more zeros than poles, or a zero or pole is at 0.
+ * @throws {TypeError} When a value is not finite.
  * @example
  * ```ts
  * import { lowpassToHighpass } from "./transforms.ts";
@@ -81,7 +93,7 @@ export function lowpassToLowpass(prototype: ZerosPolesGain, w0: number): ZerosPo
  */
 export function lowpassToHighpass(prototype: ZerosPolesGain, w0: number): ZerosPolesGain {
   requirePositive("Cutoff w0", w0, " rad/s");
-  const d = relativeDegree(prototype);
+  const d = relativeDegree(prototype, true);
   const w = { re: w0, im: 0 };
   const zeros = prototype.zeros.map((z) => div(w, z));
   const poles = prototype.poles.map((p) => div(w, p));
@@ -144,7 +156,8 @@ export function lowpassToBandpass(
  * @param w0 Centre (geometric mean of the band edges) in rad/s, > 0.
  * @param bw Width between the band edges in rad/s, > 0.
  * @returns The analog bandstop, twice the prototype's order.
- * @throws {RangeError} When w0 or bw ≤ 0 or there are more zeros than poles.
+ * @throws {RangeError} When w0 or bw ≤ 0, there are more zeros than poles, or a zero or pole is at 0.
+ * @throws {TypeError} When a value is not finite.
  * @example
  * ```ts
  * import { lowpassToBandstop } from "./transforms.ts";
@@ -160,7 +173,7 @@ export function lowpassToBandstop(
 ): ZerosPolesGain {
   requirePositive("Centre frequency w0", w0, " rad/s");
   requirePositive("Bandwidth", bw, " rad/s");
-  const d = relativeDegree(prototype);
+  const d = relativeDegree(prototype, true);
   const half = { re: bw / 2, im: 0 };
   const zeros: Complex[] = [];
   const poles: Complex[] = [];

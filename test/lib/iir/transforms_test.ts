@@ -95,4 +95,14 @@ Deno.test("transforms reject bad input", () => {
     RangeError,
     /no more zeros than poles, got 2 zeros and 1 poles/,
   );
+  assertThrowsMatching(
+    () => lowpassToBandstop({ zeros: [], poles: [{ re: 0, im: 0 }], gain: 1 }, 1, 1),
+    RangeError,
+    /no pole at s = 0/,
+  );
+  assertThrowsMatching(
+    () => lowpassToLowpass({ zeros: [], poles: [{ re: NaN, im: 0 }], gain: 1 }, 1),
+    TypeError,
+    /Pole \[0\] must be a finite complex number/,
+  );
 });
