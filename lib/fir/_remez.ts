@@ -424,29 +424,47 @@ export class GridEvaluator {
   }
 }
 
-/** Chebyshev points θ_m = π(m + ½)/r as sin²(θ/2), cos²(θ/2), and the cosine table for the DCT. */
+/**
+ * Fits P's cosine coefficients from its values at r Chebyshev points. When the
+ * bands leave gaps below their lowest or above their highest frequency, the
+ * points are spread over the x-range the bands cover only (x = b + a·t, t ∈
+ * [−1, 1]), as McClellan, Parks and Rabiner do: sampling the interpolant
+ * outside its nodes would be extrapolation, which is unstable. The Chebyshev
+ * series in t is then rewritten in x.
+ */
 class CosineFit {
   readonly ts: Float64Array;
   readonly tc: Float64Array;
   readonly table: Float64Array;
   readonly values: Float64Array;
-  constructor(readonly r: number) {
+  readonly mapped: boolean;
+  readonly a: number;
+  readonly b: number;
+  private readonly work: Float64Array;
+  constructor(readonly r: number, sHigh: number, cLow: number) {
+    // x ranges over [2cLow − 1, 1 − 2sHigh]; a = half-width, b = centre.
+    this.a = 1 - sHigh - cLow;
+    this.b = cLow - sHigh;
+    // Bands reaching 0 and fs/2 (up to rounding of cos²(π/2)) need no mapping.
+    this.mapped = sHigh > 1e-15 || cLow > 1e-15;
     this.ts = new Float64Array(r);
     this.tc = new Float64Array(r);
     for (let m = 0; m < r; m++) {
       const half = (Math.PI * (m + 0.5)) / (2 * r);
-      this.ts[m] = Math.sin(half) ** 2;
-      this.tc[m] = Math.cos(half) ** 2;
+      this.ts[m] = sHigh + this.a * Math.sin(half) ** 2;
+      this.tc[m] = cLow + this.a * Math.cos(half) ** 2;
     }
     this.table = new Float64Array(4 * r);
     for (let i = 0; i < 4 * r; i++) this.table[i] = Math.cos((Math.PI * i) / (2 * r));
     this.values = new Float64Array(r);
+    this.work = new Float64Array(3 * (r + 2));
   }
 
-  /** α_k = (2/r)·Σ_m P(θ_m) cos(kθ_m) (halved for k = 0): exact for degree < r. */
+  /** α_k with P(ω) = Σ α_k cos kω (exact for degree < r). */
   coefficients(values: Float64Array, alpha: Float64Array): void {
     const r = this.r;
     const period = 4 * r;
+    // Chebyshev coefficients in t: (2/r)·Σ_m P(t_m) T_k(t_m), halved for k = 0.
     for (let k = 0; k < r; k++) {
       let sum = 0;
       let index = k;
@@ -458,6 +476,93 @@ class CosineFit {
       }
       alpha[k] = ((k === 0 ? 1 : 2) * sum) / r;
     }
+    if (this.mapped) this.rewriteInX(alpha);
+  }
+
+  /**
+   * Rewrite Σ c_k T_k(t), t = (x − b)/a, as Σ α_j T_j(x) by Clenshaw's recurrence
+   * on coefficient vectors: B_k = c_k + 2t·B_{k+1} − B_{k+2}, P = c_0 + t·B_1 − B_2,
+   * with x·T_0 = T_1 and x·T_j = (T_{j+1} + T_{j−1})/2.
+   */
+  private rewriteInX(c: Float64Array): void {
+    const r = this.r;
+    const w = r + 2;
+    const { a, b } = this;
+    let b1 = this.work.subarray(0, w).fill(0);
+    let b2 = this.work.subarray(w, 2 * w).fill(0);
+    let b0 = this.work.subarray(2 * w, 3 * w).fill(0);
+    // t·V written into out (scaled by `scale`), then `out = scale·t·V + add`.
+    const timesT = (v: Float64Array, scale: number, out: Float64Array, degree: number): void => {
+      out.fill(0);
+      for (let j = 0; j <= degree; j++) {
+        const vj = v[j]!;
+        if (vj === 0) continue;
+        if (j === 0) out[1]! += vj;
+        else {
+          out[j + 1]! += vj / 2;
+          out[j - 1]! += vj / 2;
+        }
+        out[j]! -= b * vj;
+      }
+      for (let j = 0; j <= degree + 1; j++) out[j]! *= scale / a;
+    };
+    for (let k = r - 1; k >= 1; k--) {
+      // b0 = c_k + 2t·b1 − b2 (b1 has degree r − 1 − k at most)
+      const degree = r - 1 - (k + 1);
+      timesT(b1, 2, b0, Math.max(0, degree));
+      b0[0]! += c[k]!;
+      for (let j = 0; j < w; j++) b0[j]! -= b2[j]!;
+      const t = b2;
+      b2 = b1;
+      b1 = b0;
+      b0 = t;
+    }
+    // P = c_0 + t·b1 − b2
+    timesT(b1, 1, b0, Math.max(0, r - 2));
+    b0[0]! += c[0]!;
+    for (let j = 0; j < r; j++) c[j] = b0[j]! - b2[j]!;
+    c[r] = 0;
+    c[r + 1] = 0;
+  }
+}
+
+/**
+ * Initial reference: r + 1 grid points at equal steps of the Chebyshev
+ * (arcsine) measure of the x-range the bands span, restricted to the bands.
+ * When the bands cover 0 … 0.5 this is the classic equal spacing in frequency;
+ * when they leave wide gaps at either end it clusters points towards the ends
+ * of the covered range, which keeps the first interpolants free of Runge-type
+ * blow-up.
+ */
+function initialReference(grid: Grid, ext: Int32Array): void {
+  const n = grid.f.length;
+  const want = ext.length;
+  // x = cos 2πf runs from xHigh (lowest f) down to xLow (highest f).
+  const xHigh = 1 - 2 * grid.s[0]!;
+  const xLow = 1 - 2 * grid.s[n - 1]!;
+  const span = xHigh - xLow;
+  const angle = (i: number, side: number): number => {
+    // Chebyshev measure position of the cell boundary of point i (side −1 left, +1 right).
+    let f = grid.f[i]!;
+    const j = i + side;
+    if (j >= 0 && j < n && grid.band[j] === grid.band[i]) f = (f + grid.f[j]!) / 2;
+    const x = Math.cos(2 * Math.PI * f);
+    const t = span > 0 ? Math.min(1, Math.max(-1, (2 * x - xHigh - xLow) / span)) : 0;
+    return Math.acos(t);
+  };
+  const cumulative = new Float64Array(n + 1);
+  for (let i = 0; i < n; i++) {
+    cumulative[i + 1] = cumulative[i]! + Math.max(0, angle(i, 1) - angle(i, -1));
+  }
+  const total = cumulative[n]!;
+  let i = 0;
+  for (let k = 0; k < want; k++) {
+    const target = (total * (k + 0.5)) / want;
+    while (i < n - 1 && cumulative[i + 1]! < target) i++;
+    // Keep indices strictly increasing with room left for the points still to come.
+    const lowest = k === 0 ? 0 : ext[k - 1]! + 1;
+    const highest = n - (want - k);
+    ext[k] = Math.min(Math.max(i, lowest), highest);
   }
 }
 
@@ -477,8 +582,7 @@ export function remezExchange(p: RemezProblem): RemezSolution {
   }
   const warnings: DesignWarning[] = [];
   let ext: Int32Array = new Int32Array(r + 1);
-  for (let j = 0; j < r; j++) ext[j] = Math.floor((j * (n - 1)) / r);
-  ext[r] = n - 1;
+  initialReference(grid, ext);
 
   const nz = r + 1;
   const ns = new Float64Array(nz);
@@ -488,7 +592,7 @@ export function remezExchange(p: RemezProblem): RemezSolution {
   const error = new Float64Array(n);
   const skip = new Int32Array(n).fill(-1);
   let fast = 0;
-  const fit = new CosineFit(r);
+  const fit = new CosineFit(r, grid.s[0]!, grid.c[n - 1]!);
   const evaluator = new GridEvaluator(grid, r, p.gridDensity);
   const alpha = new Float64Array(r + 2);
   let delta = 0;
@@ -502,6 +606,28 @@ export function remezExchange(p: RemezProblem): RemezSolution {
   for (let i = 0; i < n; i++) scale = Math.max(scale, Math.abs(grid.weight[i]! * grid.desired[i]!));
   const noise = 64 * Number.EPSILON * scale;
 
+  const probeS = new Float64Array(r + 1);
+  const probeC = new Float64Array(r + 1);
+  const probeValues = new Float64Array(r + 1);
+  const confirmed = (picked: number[]): boolean => {
+    for (let j = 0; j < picked.length; j++) {
+      probeS[j] = grid.s[picked[j]!]!;
+      probeC[j] = grid.c[picked[j]!]!;
+    }
+    interpolate(ns, nc, bw, y, probeS, probeC, probeValues);
+    const floor = Math.abs(delta) * (1 - 1e-9) - noise;
+    let sign = 0;
+    for (let j = 0; j < picked.length; j++) {
+      const i = picked[j]!;
+      const e = grid.weight[i]! * (probeValues[j]! - grid.desired[i]!);
+      if (!(Math.abs(e) >= floor) || Math.sign(e) === sign) return false;
+      sign = Math.sign(e);
+    }
+    return true;
+  };
+  let unresolvedRun = 0;
+  let runStart = 0;
+  let previousResolved = false;
   const fail = (what: string): never => {
     if (Math.abs(delta) < 1e-12 * scale) {
       throw new RemezFailure(
@@ -534,7 +660,22 @@ export function remezExchange(p: RemezProblem): RemezSolution {
     }
     const size = Math.abs(delta);
     if (!Number.isFinite(delta)) fail(`the deviation is not finite at iteration ${iterations}`);
-    if (iterations > 1 && size < previous * (1 - 1e-9)) {
+    // While |δ| sits at the rounding level (a poor early reference, or a
+    // specification over-met for the length) its value means little: keep
+    // exchanging, but give up after a run of such iterations.
+    const unresolved = size < 100 * noise;
+    unresolvedRun = unresolved ? unresolvedRun + 1 : 0;
+    if (unresolvedRun === 1) runStart = size;
+    // Growing out of the noise (tenfold per eight iterations) is progress; flat is not.
+    if (unresolvedRun > 0 && unresolvedRun % 8 === 0 && !(size > 10 * runStart)) {
+      throw new RemezFailure(
+        `The Remez exchange cannot resolve this specification: after ${iterations} iterations the equiripple deviation stays at the rounding level of double precision (${
+          size.toExponential(2)
+        }). The specification is over-met for this many taps: use fewer taps or a narrower transition band`,
+      );
+    }
+    if (unresolvedRun > 0 && unresolvedRun % 8 === 0) runStart = size;
+    if (iterations > 1 && !unresolved && previousResolved && size < previous * (1 - 1e-9)) {
       // In exact arithmetic |δ| never falls: rounding has taken over.
       if (gap < 1e-3) {
         warnings.push({
@@ -553,6 +694,7 @@ export function remezExchange(p: RemezProblem): RemezSolution {
       );
     }
     previous = size;
+    previousResolved = !unresolved;
     interpolate(ns, nc, bw, y, fit.ts, fit.tc, fit.values);
     fit.coefficients(fit.values, alpha);
     // The chirp-z path carries an absolute error of about ε·Σ|α_k|; while the
@@ -560,24 +702,37 @@ export function remezExchange(p: RemezProblem): RemezSolution {
     // barycentric form is used instead.
     let sumAbs = 0;
     for (let k = 0; k < r; k++) sumAbs += Math.abs(alpha[k]!);
+    const direct = (): void => {
+      skip.fill(-1);
+      for (let j = 0; j < nz; j++) skip[ext[j]!] = j;
+      interpolate(ns, nc, bw, y, grid.s, grid.c, values, skip);
+    };
+    const search = (): number[] => {
+      let peak = 0;
+      for (let i = 0; i < n; i++) {
+        const e = grid.weight[i]! * (values[i]! - grid.desired[i]!);
+        error[i] = e;
+        if (Math.abs(e) > peak) peak = Math.abs(e);
+      }
+      gap = (peak - size) / size;
+      return selectExtrema(error, grid.band, size * (1 - 1e-9) - noise, nz);
+    };
+    let next: number[];
     if (1e6 * Number.EPSILON * sumAbs < size) {
       evaluator.evaluate(alpha, values);
       // On the reference itself the interpolant is known exactly.
       for (let j = 0; j < nz; j++) values[ext[j]!] = y[j]!;
-      fast++;
+      next = search();
+      // Confirm the chosen points with the exact barycentric form: they must
+      // alternate with |E| ≥ |δ|, or the exchange could go backwards.
+      if (next.length === nz && !confirmed(next)) {
+        direct();
+        next = search();
+      } else fast++;
     } else {
-      skip.fill(-1);
-      for (let j = 0; j < nz; j++) skip[ext[j]!] = j;
-      interpolate(ns, nc, bw, y, grid.s, grid.c, values, skip);
+      direct();
+      next = search();
     }
-    let peak = 0;
-    for (let i = 0; i < n; i++) {
-      const e = grid.weight[i]! * (values[i]! - grid.desired[i]!);
-      error[i] = e;
-      if (Math.abs(e) > peak) peak = Math.abs(e);
-    }
-    gap = (peak - size) / size;
-    const next = selectExtrema(error, grid.band, size * (1 - 1e-9) - noise, nz);
     if (next.length < nz) {
       if (gap < 1e-3) {
         warnings.push({

@@ -2,6 +2,7 @@ import { requireInteger, show } from "../_validate.ts";
 import type { DesignWarning } from "../types.ts";
 import { checkBands } from "./_bands.ts";
 import { remezExchange, RemezFailure } from "./_remez.ts";
+import { realSpectrum } from "../fft/fft.ts";
 import type { DesignBand } from "./types.ts";
 
 /**
@@ -160,6 +161,8 @@ export function designEquiripple(options: EquirippleOptions): EquirippleDesign {
     if (error instanceof RemezFailure) throw new ConvergenceError(error.message);
     throw error;
   }
+  const warnings = [...solution.warnings];
+  checkBetweenGridPoints(solution.taps, solution.deviation, bands, kind, fs, warnings);
   const extremalFrequencies = solution.extremalFrequencies.map((f) => f * fs);
   return {
     taps: solution.taps,
@@ -167,6 +170,88 @@ export function designEquiripple(options: EquirippleOptions): EquirippleDesign {
     bandDeviations: bands.map((b) => solution.deviation / b.weight),
     extremalFrequencies,
     iterations: solution.iterations,
-    warnings: solution.warnings,
+    warnings,
   };
+}
+
+/**
+ * The exchange works on a grid; check the weighted error on a grid at least
+ * 8 times denser (by FFT). A design whose error between grid points is far
+ * above δ (the response blows up in wide transition bands) is refused; a
+ * small excess or a large transition-band peak becomes a warning.
+ */
+function checkBetweenGridPoints(
+  taps: Float64Array,
+  deviation: number,
+  bands: ReturnType<typeof checkBands>,
+  kind: EquirippleKind,
+  fs: number,
+  warnings: DesignWarning[],
+): void {
+  let size = 8192;
+  while (size < 16 * taps.length) size *= 2;
+  const { re, im } = realSpectrum(taps, size);
+  let worst = 0;
+  let worstAt = 0;
+  let peakOutside = 0;
+  let peakAt = 0;
+  let b = 0;
+  for (let k = 0; k <= size / 2; k++) {
+    const f = (k * fs) / size;
+    const mag = Math.hypot(re[k]!, im[k]!);
+    while (b < bands.length && bands[b]!.to < f) b++;
+    const band = bands[b];
+    if (band === undefined || f < band.from) {
+      if (mag > peakOutside) {
+        peakOutside = mag;
+        peakAt = f;
+      }
+      continue;
+    }
+    let wanted = Math.abs(band.gain);
+    let weight = band.weight;
+    if (kind === "differentiator") {
+      const fn = f / fs;
+      wanted = Math.abs(band.gain) * 2 * Math.PI * fn;
+      if (Math.abs(band.gain) * 2 * Math.PI >= 1e-4) weight = fn > 0 ? band.weight / fn : 0;
+    }
+    const e = weight * Math.abs(mag - wanted);
+    if (e > worst) {
+      worst = e;
+      worstAt = f;
+    }
+  }
+  const ratio = worst / deviation;
+  if (ratio > 2) {
+    throw new ConvergenceError(
+      `The design is equiripple only on its frequency grid: between grid points the weighted error reaches ${
+        worst.toExponential(2)
+      } at ${show(worstAt)} Hz, ${ratio.toPrecision(3)} times the equiripple level ${
+        deviation.toExponential(2)
+      }${
+        peakOutside > 10
+          ? `, and the gain in a transition band climbs to ${peakOutside.toExponential(2)}`
+          : ""
+      }. The transition bands are too wide for this many taps: narrow them, use fewer taps, or raise the grid density`,
+    );
+  }
+  if (ratio > 1.05) {
+    warnings.push({
+      code: "grid-resolution",
+      message: `Between the design grid's points the weighted error reaches ${
+        ((ratio - 1) * 100).toPrecision(2)
+      }% above the equiripple level (at ${
+        show(worstAt)
+      } Hz); a higher grid density would even it out.`,
+    });
+  }
+  const largestGain = Math.max(...bands.map((x) => Math.abs(x.gain)), 1e-300);
+  if (kind !== "differentiator" && peakOutside > 2 * largestGain) {
+    warnings.push({
+      code: "transition-peak",
+      message: `The gain peaks at ${(20 * Math.log10(peakOutside)).toFixed(1)} dB at ${
+        show(peakAt)
+      } Hz in a transition band, where the design leaves the response free.`,
+    });
+  }
 }

@@ -107,6 +107,24 @@ out["equirippleLong"] = {
     "stopbandPeak": float(np.max(m[w >= 0.205])),
 }
 
+# Hard multiband cases (wide transition bands, bands not reaching 0 or fs/2): compared on
+# the weighted error each design achieves on a dense grid, not on taps.
+hard = []
+for n, bands in [
+    (81, [[0.0, 0.13763953395726652, 1.0, 10.0], [0.15937379435704807, 0.24732989486034707, 0.0, 3.0],
+          [0.35665020420610793, 0.49313669411218974, 0.0, 3.0]]),
+    (69, [[0.0, 0.13205651580958294, 0.0, 3.0], [0.25432861763828724, 0.34074523116889827, 1.0, 10.0]]),
+    (120, [[0.05, 0.15, 0.0, 1.0], [0.2, 0.3, 1.0, 1.0], [0.35, 0.45, 0.0, 1.0]]),
+]:
+    edges = [b for band in bands for b in band[:2]]
+    taps = signal.remez(n, edges, [b[2] for b in bands], weight=[b[3] for b in bands], fs=1)
+    w, h = signal.freqz(taps, worN=1 << 16, fs=1)
+    m = np.abs(h)
+    worst = max(float(np.max(np.abs(m[(w >= b[0]) & (w <= b[1])] - b[2]))) * b[3] for b in bands)
+    hard.append({"function": "scipy.signal.remez + scipy.signal.freqz (65536 points)", "length": n,
+                 "fs": 1.0, "bands": bands, "weightedError": worst})
+out["equirippleHard"] = hard
+
 # Weighted least squares (firls needs an odd length). bands: [from, to, gainFrom, gainTo, weight].
 ls = []
 def ls_case(length, fs, bands):
