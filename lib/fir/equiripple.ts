@@ -51,7 +51,27 @@ export interface EquirippleDesign {
   warnings: DesignWarning[];
 }
 
-/** The Remez exchange could not produce a trustworthy filter for this specification. */
+/**
+ * The Remez exchange could not produce a trustworthy filter for this
+ * specification; the message says what failed and what to change.
+ *
+ * @example
+ * ```ts
+ * import { ConvergenceError, designEquiripple } from "./equiripple.ts";
+ * // 301 taps for a 0.1·fs transition band would need ripple far below double precision.
+ * let refused = false;
+ * try {
+ *   designEquiripple({
+ *     length: 301,
+ *     fs: 1,
+ *     bands: [{ from: 0, to: 0.2, gain: 1 }, { from: 0.3, to: 0.5, gain: 0 }],
+ *   });
+ * } catch (e) {
+ *   refused = e instanceof ConvergenceError && e.message.includes("fewer taps");
+ * }
+ * if (!refused) throw new Error("an over-met specification ends in a clear error");
+ * ```
+ */
 export class ConvergenceError extends Error {
   /**
    * @param message What failed and what to change.
