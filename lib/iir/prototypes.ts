@@ -2,6 +2,7 @@ import type { Complex, ZerosPolesGain } from "../types.ts";
 import { polynomialRoots } from "../poly/roots.ts";
 import { powerRatioMinusOne, requireAttenuation, requireOrder, requireRipple } from "./_checks.ts";
 import { completeK, ellipticDegreeParameter, incompleteF, jacobiFunctions } from "./_elliptic.ts";
+import { refineBesselRoots } from "./_bessel.ts";
 
 /** How a Bessel prototype is scaled in frequency. */
 export type BesselNormalisation = "phase" | "delay" | "magnitude";
@@ -244,8 +245,11 @@ function reverseBesselPolynomial(order: number): Float64Array {
 
 /**
  * Analog Bessel–Thomson lowpass prototype (maximally flat group delay):
- * H(s) = θ_N(0)/θ_N(s) with θ_N the reverse Bessel polynomial, poles found by
- * Aberth iteration on θ_N and polished by Newton's method, then scaled:
+ * H(s) = θ_N(0)/θ_N(s) with θ_N the reverse Bessel polynomial. Its poles are
+ * found by Aberth iteration, then refined by Aberth sweeps that evaluate θ_N
+ * in double-double arithmetic from its exact integer coefficients (in plain
+ * double precision the cancellation between its terms limits the poles to
+ * ~1e-7 at N = 20 and worse beyond); then they are scaled:
  * "delay" keeps the group delay at DC equal to 1 s; "phase" scales the poles
  * by θ_N(0)^(−1/N) so the phase response matches the Butterworth asymptote
  * (phase −Nπ/4 reached near 1 rad/s); "magnitude" puts the −3 dB point at 1 rad/s.
@@ -280,8 +284,7 @@ export function besselPrototype(
   }
   const c = reverseBesselPolynomial(order);
   const a0 = c[order]!;
-  const roots = polynomialRoots(c);
-  let poles: Complex[] = roots.map((z) => ({ re: z.re, im: z.im }));
+  let poles: Complex[] = refineBesselRoots(order, polynomialRoots(c));
   let gain = a0;
   if (normalisation === "phase") {
     const s = Math.pow(a0, -1 / order);

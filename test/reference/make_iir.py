@@ -67,7 +67,7 @@ for n, rp, rs in [(1, 1, 40), (2, 0.5, 30), (3, 0.1, 50), (4, 1, 60), (5, 0.5, 7
                    "family": "elliptic", "order": n, "rippleDb": rp, "attenuationDb": rs,
                    "zeros": cplx(z), "poles": cplx(p_), "gain": float(k)})
 for norm, ours in [("phase", "phase"), ("delay", "delay"), ("mag", "magnitude")]:
-    for n in [1, 2, 3, 4, 5, 6, 8, 10, 12]:
+    for n in [1, 2, 3, 4, 5, 6, 8, 10, 12, 16, 20, 25]:
         z, p_, k = signal.besselap(n, norm=norm)
         protos.append({"name": f"Bessel N={n} norm={norm}", "reference": f"scipy.signal.besselap(norm='{norm}')",
                        "version": VERSION, "family": "bessel", "order": n, "normalisation": ours,
