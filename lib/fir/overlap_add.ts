@@ -82,9 +82,16 @@ export function applyFirOverlapAdd(
     const second = start + block;
     const count0 = Math.min(block, length - start);
     const count1 = Math.max(0, Math.min(block, length - second));
-    work.fill(0);
-    for (let i = 0; i < count0; i++) work[2 * i] = signal[start + i] as number;
-    for (let i = 0; i < count1; i++) work[2 * i + 1] = signal[second + i] as number;
+    // Pack block 0 as real parts and block 1 as imaginary parts; zero the rest.
+    for (let i = 0; i < count1; i++) {
+      work[2 * i] = signal[start + i] as number;
+      work[2 * i + 1] = signal[second + i] as number;
+    }
+    for (let i = count1; i < count0; i++) {
+      work[2 * i] = signal[start + i] as number;
+      work[2 * i + 1] = 0;
+    }
+    work.fill(0, 2 * count0);
     fft.transform(spectrum, work);
     // Z·H, conjugated, so that a forward transform yields the conjugate of the inverse.
     for (let k = 0; k < m; k++) {

@@ -84,7 +84,7 @@ export interface PinkNoiseOptions {
  * sources, where row r is redrawn every 2^(r+1) samples (row r at the samples
  * whose index has exactly r trailing zero bits) and one extra source is redrawn
  * every sample. The power spectral density falls by about 3 dB per octave
- * (10 dB per decade) with a ripple of about ±0.5 dB. Samples are scaled by
+ * (10 dB per decade) with a small ripple about that line. Samples are scaled by
  * 1/√(R + 1), so the standard deviation is σ.
  *
  * Source: M. Gardner, "White and brown music, fractal curves and one-over-f
