@@ -20,15 +20,17 @@ export interface WindowMetrics {
   bandwidth6Db: number;
 }
 
-/** |W(ν)| at ν bins, ν·(1/N) cycles per sample, by direct summation. */
+/** |W(ν)| at ν bins (ν/N cycles per sample), by Horner's rule in z = e^(−j2πν/N). */
 function magnitudeAt(w: Float64Array, bins: number): number {
   const n = w.length;
-  const step = (2 * Math.PI * bins) / n;
+  const zr = Math.cos((2 * Math.PI * bins) / n);
+  const zi = -Math.sin((2 * Math.PI * bins) / n);
   let re = 0;
   let im = 0;
-  for (let i = 0; i < n; i++) {
-    re += w[i]! * Math.cos(step * i);
-    im -= w[i]! * Math.sin(step * i);
+  for (let i = n - 1; i >= 0; i--) {
+    const r = re * zr - im * zi + w[i]!;
+    im = re * zi + im * zr;
+    re = r;
   }
   return Math.hypot(re, im);
 }
@@ -74,8 +76,8 @@ function crossing(w: Float64Array, target: number, a: number, b: number): number
  * scalloping loss at half a bin, highest sidelobe level, and the 3 dB and
  * 6 dB main-lobe widths. One bin is fs/N for a window of N samples.
  *
- * The spectrum is scanned on a zero-padded FFT grid (at least 64 points per
- * bin), then the highest sidelobe and the band edges are refined by direct
+ * The spectrum is scanned on a zero-padded FFT grid (64 points per bin, at
+ * least 8 for windows over 16384 samples), then the highest sidelobe and the band edges are refined by direct
  * evaluation of W(ν) = Σ w[n] e^(−j2πνn/N) (golden section and bisection).
  * The definitions are Harris's; his table uses the periodic ("DFT-even") forms.
  *
@@ -112,9 +114,10 @@ export function windowMetrics(window: ArrayLike<number>): WindowMetrics {
   const equivalentNoiseBandwidth = (n * sumSquares) / (sum * sum);
   const scallopingLossDb = -20 * Math.log10(magnitudeAt(w, 0.5) / peak);
 
-  // Scan |W| on a dense grid: `density` points per bin, up to fs/2 (N/2 bins).
+  // Scan |W| on a dense grid: `density` points per bin (64, or down to 8 for
+  // windows longer than 16384 samples to bound the work), up to fs/2 (N/2 bins).
   let size = 1;
-  while (size < 64 * n) size *= 2;
+  while (size < Math.max(8 * n, Math.min(64 * n, 1 << 20))) size *= 2;
   const density = size / n;
   const { re, im } = realFft(w, { size });
   const mag = new Float64Array(re.length);
