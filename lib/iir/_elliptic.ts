@@ -87,7 +87,7 @@ export function jacobiFunctions(
  * k given the order N and the discrimination k1 (with k1′), through nomes:
  * q = q1^(1/N), k² = 16q·(Σ q^(m(m+1)))⁴ / (1 + 2Σ q^(m²))⁴.
  * Returns k² (the parameter m). Source: S. J. Orfanidis, "Lecture notes on
- * elliptic filter design" (Rutgers, 2006), eq. (47)–(50).
+ * elliptic filter design" (Rutgers, 2006), degree equation solved by nomes.
  */
 export function ellipticDegreeParameter(order: number, k1: number, k1Prime: number): number {
   const q1 = Math.exp(-Math.PI * completeK(k1) / completeK(k1Prime));

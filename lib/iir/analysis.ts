@@ -10,7 +10,7 @@ import { sectionsToZerosPoles } from "./sections.ts";
  * evaluated section by section (no high-order polynomial is formed).
  *
  * Source: A. V. Oppenheim and R. W. Schafer, Discrete-Time Signal
- * Processing, 3rd ed., §5.3.
+ * Processing, 3rd ed., ch. 5 (frequency response of rational systems).
  *
  * @param sections The cascade.
  * @param frequencies Frequencies in Hz, each in [0, fs/2].
@@ -105,7 +105,7 @@ function quadraticDelay(b0: number, b1: number, b2: number, w: number): number {
  * continued by its limit (the zero contributes 1/2 there as everywhere).
  *
  * Source: A. V. Oppenheim and R. W. Schafer, Discrete-Time Signal
- * Processing, 3rd ed., §5.1.2 and eq. (5.67) (group delay of a first-order factor).
+ * Processing, 3rd ed., ch. 5 (group delay of a first-order factor).
  *
  * @param sections The cascade.
  * @param frequencies Frequencies in Hz, each in [0, fs/2].
@@ -157,7 +157,7 @@ export interface Stability {
  * closed form: stable when the largest pole radius is below 1.
  *
  * Source: A. V. Oppenheim and R. W. Schafer, Discrete-Time Signal
- * Processing, 3rd ed., §3.3 (region of convergence of causal stable systems).
+ * Processing, 3rd ed., ch. 3 (region of convergence of causal stable systems).
  *
  * @param sections The cascade.
  * @returns Largest pole radius, margin (1 − radius) and the verdict.
@@ -194,7 +194,7 @@ export interface MinimumPhaseOptions {
  * stable causal inverse and the least group delay for its magnitude response.
  *
  * Source: A. V. Oppenheim and R. W. Schafer, Discrete-Time Signal
- * Processing, 3rd ed., §5.6.
+ * Processing, 3rd ed., ch. 5 (minimum-phase systems).
  *
  * @param sections The cascade.
  * @param options Whether unit-circle zeros count, and the radius tolerance.

@@ -118,8 +118,8 @@ function prototypeFor(options: IirDesignOptions): ZerosPolesGain {
  * "section-ill-conditioned" warning.
  *
  * Source: A. V. Oppenheim and R. W. Schafer, Discrete-Time Signal
- * Processing, 3rd ed., §7.1–7.2 (bilinear transform design, pre-warping);
- * T. W. Parks and C. S. Burrus, Digital Filter Design, ch. 7.
+ * Processing, 3rd ed., ch. 7 (bilinear transformation, pre-warping);
+ * T. W. Parks and C. S. Burrus, Digital Filter Design (Wiley, 1987), IIR design chapters.
  *
  * @param options Family, band shape, order, fs, edges, ripple/attenuation.
  * @returns Zeros/poles/gain, sections, order and warnings.

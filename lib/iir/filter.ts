@@ -13,7 +13,7 @@ import { runSections } from "./_run.ts";
  * the filter starts at rest (all states zero).
  *
  * Source: A. V. Oppenheim and R. W. Schafer, Discrete-Time Signal
- * Processing, 3rd ed., §6.5 (transposed forms) and §6.3 (cascade form).
+ * Processing, 3rd ed., ch. 6 (cascade form, transposed forms).
  *
  * @param sections The cascade, applied first to last; a0 = 1 in each.
  * @param signal Input samples.
@@ -108,7 +108,7 @@ export function createSectionState(sections: readonly Section[]): Float64Array {
  * Streaming: pass the same `state` (length max(M, N)) to successive calls.
  *
  * Source: A. V. Oppenheim and R. W. Schafer, Discrete-Time Signal
- * Processing, 3rd ed., §6.5.
+ * Processing, 3rd ed., ch. 6 (transposed direct form II).
  *
  * @param numerator b[0..M], at least one value.
  * @param denominator a[0..N], a[0] ≠ 0.

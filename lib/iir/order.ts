@@ -44,10 +44,10 @@ export interface IirOrderEstimate extends IirDesignOptions {
  * λ = min |Ω² − Ω₀²|/(B·Ω) over the stopband edges, Ω₀² = Ωp1·Ωp2,
  * B = Ωp2 − Ωp1; bandstop: λ = min B·Ω/|Ω₀² − Ω²|). With
  * Gp = 10^(Ap/10) − 1 and Gs = 10^(As/10) − 1:
- * - Butterworth: N = ⌈log(Gs/Gp) / (2·log λ)⌉ (S. Butterworth 1930; Parks & Burrus §7.3.1)
- * - Chebyshev I and II: N = ⌈acosh(√(Gs/Gp)) / acosh λ⌉ (Parks & Burrus §7.3.2–7.3.3)
+ * - Butterworth: N = ⌈log(Gs/Gp) / (2·log λ)⌉ (S. Butterworth 1930; Parks & Burrus)
+ * - Chebyshev I and II: N = ⌈acosh(√(Gs/Gp)) / acosh λ⌉ (Parks & Burrus)
  * - elliptic: the degree equation N = ⌈K(1/λ)·K′(k1) / (K′(1/λ)·K(k1))⌉, k1 = √(Gp/Gs)
- *   (Daniels 1974, ch. 5; Orfanidis 2006, eq. (4))
+ *   (Daniels 1974; Orfanidis 2006)
  * - Bessel: no closed form exists; the smallest N ≤ 25 whose −3 dB-normalised
  *   prototype meets both limits, found by evaluating the response
  *   (the result uses besselNormalisation "magnitude").
@@ -55,7 +55,7 @@ export interface IirOrderEstimate extends IirDesignOptions {
  * moving them).
  *
  * Source: T. W. Parks and C. S. Burrus, Digital Filter Design (Wiley, 1987),
- * §7.3; R. W. Daniels, Approximation Methods for Electronic Filter Design
+ * analog approximation chapters (cited from memory); R. W. Daniels, Approximation Methods for Electronic Filter Design
  * (McGraw-Hill, 1974).
  *
  * @param requirements Family, shape, fs, passband and stopband edges, ripple and attenuation.

@@ -45,7 +45,7 @@ function withConjugates(upper: readonly Complex[], real: readonly number[]): Com
  *
  * Source: S. Butterworth, "On the theory of filter amplifiers", Wireless
  * Engineer 7 (1930); A. V. Oppenheim and R. W. Schafer, Discrete-Time Signal
- * Processing, 3rd ed., §7.2 and Appendix B.
+ * Processing, 3rd ed., ch. 7 and Appendix B (continuous-time filters).
  *
  * @param order Filter order N, 1..40.
  * @returns Zeros (none), poles (conjugate pairs, then the real pole −1 when N is odd) and gain 1.
@@ -77,7 +77,7 @@ export function butterworthPrototype(order: number): ZerosPolesGain {
  * (DC gain 1 for odd N, −Rp dB for even N).
  *
  * Source: T. W. Parks and C. S. Burrus, Digital Filter Design (Wiley, 1987),
- * §7.3.2; A. V. Oppenheim and R. W. Schafer, Discrete-Time Signal
+ * Chebyshev approximation (cited from memory); A. V. Oppenheim and R. W. Schafer, Discrete-Time Signal
  * Processing, 3rd ed., Appendix B.
  *
  * @param order Filter order N, 1..40.
@@ -117,7 +117,7 @@ export function chebyshev1Prototype(order: number, rippleDb: number): ZerosPoles
  * reciprocals of the type I poles for ripple ε. DC gain 1.
  *
  * Source: T. W. Parks and C. S. Burrus, Digital Filter Design (Wiley, 1987),
- * §7.3.3.
+ * inverse Chebyshev approximation (cited from memory).
  *
  * @param order Filter order N, 1..40.
  * @param attenuationDb Minimum stopband attenuation As in dB, > 0.
@@ -165,8 +165,8 @@ export function chebyshev2Prototype(order: number, attenuationDb: number): Zeros
  * modulus with its complement, so the result is accurate to a few ulps.
  *
  * Source: R. W. Daniels, Approximation Methods for Electronic Filter Design
- * (McGraw-Hill, 1974), ch. 5; S. J. Orfanidis, "Lecture notes on elliptic
- * filter design" (Rutgers, 2006), degree equation by nomes, eq. (47)–(50).
+ * (McGraw-Hill, 1974), elliptic approximation; S. J. Orfanidis, "Lecture notes on elliptic
+ * filter design" (Rutgers, 2006), degree equation solved by nomes.
  *
  * @param order Filter order N, 1..40.
  * @param rippleDb Passband ripple Rp in dB, > 0.
@@ -257,7 +257,7 @@ function reverseBesselPolynomial(order: number): Float64Array {
  *
  * Source: W. E. Thomson, "Delay networks having maximally flat frequency
  * characteristics", Proc. IEE 96 (1949) 487–490; A. B. Williams and F. J.
- * Taylor, Electronic Filter Design Handbook, 4th ed., §2.7 (Bessel filters).
+ * Taylor, Electronic Filter Design Handbook, 4th ed., ch. 2 (Bessel filters; cited from memory).
  *
  * @param order Filter order N, 1..25.
  * @param normalisation "phase", "delay" or "magnitude". @default "phase"

@@ -80,7 +80,8 @@ function sectionPeak(s: Section, poleAngles: readonly number[]): number {
  * at z = 0 are added.
  *
  * Source: L. B. Jackson, Digital Filters and Signal Processing, 3rd ed.
- * (Kluwer, 1996), §11.3 (pole–zero pairing, section ordering, scaling).
+ * (Kluwer, 1996), chapter on quantization effects: pole–zero pairing, section
+ * ordering and scaling (cited from memory).
  *
  * @param zpk Digital zeros, poles and gain; complex values in conjugate pairs.
  * @param options Gain placement.
@@ -444,7 +445,7 @@ export function polynomialToZerosPoles(
  * polynomial's coefficients, so keep designs as sections where you can.
  *
  * Source: L. B. Jackson, Digital Filters and Signal Processing, 3rd ed.,
- * §11.3; roots as in polynomialRoots.
+ * pairing and ordering (cited from memory); roots as in polynomialRoots.
  *
  * @param numerator b[0..M], at least one non-zero value.
  * @param denominator a[0..N], a[0] ≠ 0.

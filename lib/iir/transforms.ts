@@ -47,8 +47,8 @@ function splitRoot(b: Complex, w0: number): [Complex, Complex] {
  * w0^(poles − zeros).
  *
  * Source: A. V. Oppenheim and R. W. Schafer, Discrete-Time Signal
- * Processing, 3rd ed., §7.1; T. W. Parks and C. S. Burrus, Digital Filter
- * Design, §7.4 (frequency transformations).
+ * Processing, 3rd ed., ch. 7; T. W. Parks and C. S. Burrus, Digital Filter
+ * Design (Wiley, 1987), analog frequency transformations.
  *
  * @param prototype Analog lowpass zeros, poles and gain (no more zeros than poles).
  * @param w0 New cutoff in rad/s, > 0.
@@ -76,7 +76,8 @@ export function lowpassToLowpass(prototype: ZerosPolesGain, w0: number): ZerosPo
  * each zero/pole x maps to w0/x, the excess poles put zeros at s = 0, and the
  * gain is multiplied by Re(Π(−z)/Π(−p)) so the passband level is kept.
  *
- * Source: T. W. Parks and C. S. Burrus, Digital Filter Design, §7.4.
+ * Source: T. W. Parks and C. S. Burrus, Digital Filter Design (Wiley, 1987), analog
+ * frequency transformations.
  *
  * @param prototype Analog lowpass zeros, poles and gain; no zero or pole at 0.
  * @param w0 Cutoff in rad/s, > 0.
@@ -112,7 +113,8 @@ export function lowpassToHighpass(prototype: ZerosPolesGain, w0: number): ZerosP
  * multiplied by bw^(poles − zeros). The prototype's ±1 rad/s edges land on
  * the two frequencies whose geometric mean is w0 and difference is bw.
  *
- * Source: T. W. Parks and C. S. Burrus, Digital Filter Design, §7.4.
+ * Source: T. W. Parks and C. S. Burrus, Digital Filter Design (Wiley, 1987), analog
+ * frequency transformations.
  *
  * @param prototype Analog lowpass zeros, poles and gain.
  * @param w0 Centre (geometric mean of the edges) in rad/s, > 0.
@@ -150,7 +152,8 @@ export function lowpassToBandpass(
  * roots of s² − (bw/x)·s + w0² = 0, the excess poles put zero pairs at
  * ±j·w0, and the gain is multiplied by Re(Π(−z)/Π(−p)).
  *
- * Source: T. W. Parks and C. S. Burrus, Digital Filter Design, §7.4.
+ * Source: T. W. Parks and C. S. Burrus, Digital Filter Design (Wiley, 1987), analog
+ * frequency transformations.
  *
  * @param prototype Analog lowpass zeros, poles and gain; no zero or pole at 0.
  * @param w0 Centre (geometric mean of the band edges) in rad/s, > 0.
@@ -196,7 +199,7 @@ export function lowpassToBandstop(
  * so the edges land where asked.
  *
  * Source: A. V. Oppenheim and R. W. Schafer, Discrete-Time Signal
- * Processing, 3rd ed., §7.1.2.
+ * Processing, 3rd ed., ch. 7 (bilinear transformation).
  *
  * @param analog Analog zeros, poles (in rad/s) and gain; no more zeros than poles.
  * @param fs Sample rate in Hz, > 0.

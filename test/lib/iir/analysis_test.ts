@@ -57,7 +57,7 @@ Deno.test("sectionsGroupDelay stays finite on a notch zero (limit value)", () =>
 });
 
 Deno.test("sectionStability and isMinimumPhase", () => {
-  // source: Oppenheim & Schafer §3.3 (stable iff poles inside) and §5.6 (minimum phase).
+  // source: Oppenheim & Schafer, 3rd ed., ch. 3 (stable iff poles inside) and ch. 5 (minimum phase).
   const s = designIir({
     family: "chebyshev1",
     response: "lowpass",

@@ -46,7 +46,7 @@ function analogMagnitude(zpk: ZerosPolesGain, w: number): number {
 }
 
 Deno.test("Butterworth poles lie on the unit circle at angles π/2 + (2k − 1)π/(2N)", () => {
-  // source: Oppenheim & Schafer, Discrete-Time Signal Processing, 3rd ed., §7.2.1 (Butterworth poles)
+  // source: Oppenheim & Schafer, Discrete-Time Signal Processing, 3rd ed., ch. 7 (Butterworth poles)
   for (const n of [3, 6, 7]) {
     const angles = butterworthPrototype(n).poles.map((p) => Math.atan2(p.im, p.re)).sort((a, b) =>
       a - b
@@ -80,7 +80,7 @@ Deno.test("Butterworth normalised polynomials match the textbook table", () => {
 });
 
 Deno.test("Chebyshev I poles lie on the ellipse with semi-axes sinh μ and cosh μ", () => {
-  // source: Parks & Burrus, Digital Filter Design, §7.3.2: p_k = −sinh μ sin θ_k + j cosh μ cos θ_k,
+  // source: Parks & Burrus, Digital Filter Design (from memory): p_k = −sinh μ sin θ_k + j cosh μ cos θ_k,
   // μ = asinh(1/ε)/N — here checked as (Re p / sinh μ)² + (Im p / cosh μ)² = 1.
   for (const [n, rp] of [[4, 1], [5, 0.25]] as const) {
     const eps = Math.sqrt(10 ** (rp / 10) - 1);
@@ -100,7 +100,7 @@ Deno.test("Chebyshev I poles lie on the ellipse with semi-axes sinh μ and cosh 
 });
 
 Deno.test("Chebyshev II gain first reaches −As at 1 rad/s and stays below it beyond", () => {
-  // source: Parks & Burrus, Digital Filter Design, §7.3.3 (inverse Chebyshev: equiripple stopband from Ω = 1)
+  // source: Parks & Burrus, Digital Filter Design (from memory) (inverse Chebyshev: equiripple stopband from Ω = 1)
   const zpk = chebyshev2Prototype(5, 45);
   assertClose(-20 * Math.log10(analogMagnitude(zpk, 1)), 45, { abs: 1e-10 }, "loss at 1 rad/s");
   for (let w = 1; w < 20; w += 0.01) {

@@ -36,7 +36,7 @@ Deno.test("sections → zeros/poles/gain round trip reproduces the design", () =
 });
 
 Deno.test("pairing and ordering: most resonant pair last, with the zero pair nearest to it", () => {
-  // source: L. B. Jackson, Digital Filters and Signal Processing, §11.3 (pair poles with nearest zeros)
+  // source: L. B. Jackson, Digital Filters and Signal Processing (from memory) (pair poles with nearest zeros)
   // Ordering: pole radius increases along the cascade (most resonant section last).
   const radii = elliptic.sections.map((s) => Math.sqrt(s.a2));
   for (let i = 1; i < radii.length; i++) {

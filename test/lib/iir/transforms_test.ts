@@ -27,9 +27,9 @@ function digital(zpk: ZerosPolesGain, w: number): number {
   return m;
 }
 
-// source for the mappings: Parks & Burrus, Digital Filter Design, §7.4 — the prototype's response
+// source for the mappings: Parks & Burrus, Digital Filter Design (from memory) — the prototype's response
 // at λ reappears at Ω with λ = Ω/w0 (lowpass), w0/Ω (highpass), (Ω² − w0²)/(bw·Ω) (bandpass),
-// bw·Ω/(w0² − Ω²) (bandstop); bilinear: Ω = 2fs·tan(ω/2) (Oppenheim & Schafer §7.1.2).
+// bw·Ω/(w0² − Ω²) (bandstop); bilinear: Ω = 2fs·tan(ω/2) (Oppenheim & Schafer, 3rd ed., ch. 7).
 const proto = chebyshev1Prototype(4, 1);
 
 Deno.test("frequency transformations carry the prototype response to the mapped frequencies", () => {
