@@ -77,8 +77,9 @@ function crossing(w: Float64Array, target: number, a: number, b: number): number
  * 6 dB main-lobe widths. One bin is fs/N for a window of N samples.
  *
  * The spectrum is scanned on a zero-padded FFT grid (64 points per bin, at
- * least 8 for windows over 16384 samples), then the highest sidelobe and the band edges are refined by direct
- * evaluation of W(ν) = Σ w[n] e^(−j2πνn/N) (golden section and bisection).
+ * least 8 for windows over 16384 samples), then the highest sidelobe and the
+ * band edges are refined by direct evaluation of W(ν) = Σ w[n] e^(−j2πνn/N)
+ * (golden section and bisection).
  * The definitions are Harris's; his table uses the periodic ("DFT-even") forms.
  *
  * Source: F. J. Harris, "On the use of windows for harmonic analysis with the
