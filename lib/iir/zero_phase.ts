@@ -80,7 +80,8 @@ export function applyZeroPhase(
       `Signal must be longer than the pad length ${pad} for zero-phase filtering, got ${n} samples`,
     );
   }
-  const x = Float64Array.from(signal);
+  const x = new Float64Array(n);
+  x.set(signal);
   const ext = new Float64Array(n + 2 * pad);
   const first = x[0]!;
   const last = x[n - 1]!;
@@ -97,5 +98,7 @@ export function applyZeroPhase(
   for (let i = 0; i < zi.length; i++) memory[i] = zi[i]! * ext[0]!;
   runSections(sections, ext, memory);
   ext.reverse();
-  return ext.slice(pad, pad + n);
+  const out = new Float64Array(n);
+  out.set(ext.subarray(pad, pad + n));
+  return out;
 }
