@@ -1,7 +1,7 @@
 import type { DesignWarning, Section, ZerosPolesGain } from "../types.ts";
 import { show } from "../_validate.ts";
 import { requireAttenuation, requireRipple } from "./_checks.ts";
-import { type BandShape, prewarp, requireEdges, requireShape } from "./_edges.ts";
+import { prewarp, requireEdges, requireShape } from "./_edges.ts";
 import {
   type BesselNormalisation,
   besselPrototype,
@@ -20,7 +20,7 @@ import {
 import { type GainPlacement, zerosPolesToSections } from "./sections.ts";
 
 /** The four classic band shapes (same values as the FIR side's BandShape). */
-export type IirBandShape = BandShape;
+export type IirBandShape = "lowpass" | "highpass" | "bandpass" | "bandstop";
 
 /** The classic IIR families. */
 export type IirFamily = "butterworth" | "chebyshev1" | "chebyshev2" | "elliptic" | "bessel";
