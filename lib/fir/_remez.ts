@@ -30,6 +30,8 @@ export interface RemezProblem {
   kind: RemezKind;
   gridDensity: number;
   maxIterations: number;
+  /** Initial reference: Chebyshev measure of the covered range, or equal grid steps (MPR). */
+  start?: "chebyshev" | "uniform";
 }
 
 export interface RemezSolution {
@@ -527,42 +529,122 @@ class CosineFit {
 }
 
 /**
- * Initial reference: r + 1 grid points at equal steps of the Chebyshev
- * (arcsine) measure of the x-range the bands span, restricted to the bands.
- * When the bands cover 0 … 0.5 this is the classic equal spacing in frequency;
- * when they leave wide gaps at either end it clusters points towards the ends
- * of the covered range, which keeps the first interpolants free of Runge-type
- * blow-up.
+ * Initial reference: r + 1 grid points at equal steps of the equilibrium
+ * (potential-theory) measure of the bands seen as a set E = ∪[a_i, b_i] of
+ * x = cos 2πf. Its density is |q(x)| / (π·√|Π_i (x − a_i)(x − b_i)|), with q
+ * monic of degree K − 1 chosen so that every gap between bands carries zero
+ * mass; for one interval it is the arcsine (Chebyshev) density. The extremal
+ * points of best approximations on E are distributed like this measure, so
+ * the exchange starts near the answer, with points crowded at band edges.
+ *
+ * Sources: H. Widom, "Extremal polynomials associated with a system of curves
+ * in the complex plane", Adv. Math. 3, 1969; E. B. Saff and V. Totik,
+ * Logarithmic Potentials with External Fields, Springer 1997, §IV.
  */
 function initialReference(grid: Grid, ext: Int32Array): void {
   const n = grid.f.length;
   const want = ext.length;
-  // x = cos 2πf runs from xHigh (lowest f) down to xLow (highest f).
-  const xHigh = 1 - 2 * grid.s[0]!;
-  const xLow = 1 - 2 * grid.s[n - 1]!;
-  const span = xHigh - xLow;
-  const angle = (i: number, side: number): number => {
-    // Chebyshev measure position of the cell boundary of point i (side −1 left, +1 right).
-    let f = grid.f[i]!;
-    const j = i + side;
-    if (j >= 0 && j < n && grid.band[j] === grid.band[i]) f = (f + grid.f[j]!) / 2;
-    const x = Math.cos(2 * Math.PI * f);
-    const t = span > 0 ? Math.min(1, Math.max(-1, (2 * x - xHigh - xLow) / span)) : 0;
-    return Math.acos(t);
-  };
-  const cumulative = new Float64Array(n + 1);
-  for (let i = 0; i < n; i++) {
-    cumulative[i + 1] = cumulative[i]! + Math.max(0, angle(i, 1) - angle(i, -1));
+  // Band intervals in x (ascending x = descending f), from the grid's own extents.
+  const intervals: { lo: number; hi: number; first: number; last: number }[] = [];
+  for (let i = 0; i < n;) {
+    let j = i;
+    while (j + 1 < n && grid.band[j + 1] === grid.band[i]) j++;
+    intervals.push({ lo: 1 - 2 * grid.s[j]!, hi: 1 - 2 * grid.s[i]!, first: i, last: j });
+    i = j + 1;
   }
+  intervals.reverse();
+  const k = intervals.length;
+  const edges = intervals.flatMap((v) => [v.lo, v.hi]);
+  // √|Π over the edges except the two of the interval (or gap) the point lies in|
+  const restRoot = (x: number, skipA: number, skipB: number): number => {
+    let p = 1;
+    for (let e = 0; e < edges.length; e++) {
+      if (e !== skipA && e !== skipB) p *= Math.abs(x - edges[e]!);
+    }
+    return Math.sqrt(p);
+  };
+  // q(x) = x^(K−1) + Σ_{j<K−1} c_j x^j with zero mass in each gap (b_i, a_{i+1}).
+  const c = new Float64Array(Math.max(k - 1, 0));
+  if (k > 1) {
+    const m = k - 1;
+    const matrix = new Float64Array(m * (m + 1));
+    const nodes = 64;
+    for (let g = 0; g < m; g++) {
+      const lo = edges[2 * g + 1]!;
+      const hi = edges[2 * g + 2]!;
+      const mid = (lo + hi) / 2;
+      const half = (hi - lo) / 2;
+      for (let t = 0; t < nodes; t++) {
+        // x = mid + half·cos φ turns the end singularities into a smooth integrand.
+        const x = mid + half * Math.cos((Math.PI * (t + 0.5)) / nodes);
+        const w = 1 / restRoot(x, 2 * g + 1, 2 * g + 2);
+        let power = 1;
+        for (let j = 0; j <= m; j++) {
+          matrix[g * (m + 1) + j]! += power * w;
+          power *= x;
+        }
+      }
+    }
+    // Solve Σ_j c_j I_gj = −I_g,m by Gaussian elimination with partial pivoting.
+    for (let col = 0; col < m; col++) {
+      let pivot = col;
+      for (let row = col + 1; row < m; row++) {
+        if (Math.abs(matrix[row * (m + 1) + col]!) > Math.abs(matrix[pivot * (m + 1) + col]!)) {
+          pivot = row;
+        }
+      }
+      for (let j = 0; j <= m; j++) {
+        const t = matrix[col * (m + 1) + j]!;
+        matrix[col * (m + 1) + j] = matrix[pivot * (m + 1) + j]!;
+        matrix[pivot * (m + 1) + j] = t;
+      }
+      const d = matrix[col * (m + 1) + col]!;
+      for (let row = col + 1; row < m; row++) {
+        const factor = matrix[row * (m + 1) + col]! / d;
+        for (let j = col; j <= m; j++) {
+          matrix[row * (m + 1) + j]! -= factor * matrix[col * (m + 1) + j]!;
+        }
+      }
+    }
+    for (let row = m - 1; row >= 0; row--) {
+      let sum = -matrix[row * (m + 1) + m]!;
+      for (let j = row + 1; j < m; j++) sum -= matrix[row * (m + 1) + j]! * c[j]!;
+      c[row] = sum / matrix[row * (m + 1) + row]!;
+    }
+  }
+  const q = (x: number): number => {
+    let v = 1;
+    for (let j = k - 2; j >= 0; j--) v = v * x + c[j]!;
+    return k > 1 ? v : 1;
+  };
+  // Mass of each grid point's cell, measured in φ within its interval (smooth there).
+  const mass = new Float64Array(n);
+  intervals.forEach((v, index) => {
+    const mid = (v.lo + v.hi) / 2;
+    const half = (v.hi - v.lo) / 2;
+    const phi = (i: number): number => {
+      const x = 1 - 2 * grid.s[i]!;
+      return half > 0 ? Math.acos(Math.min(1, Math.max(-1, (x - mid) / half))) : Math.PI / 2;
+    };
+    for (let i = v.first; i <= v.last; i++) {
+      const left = i === v.first ? 0 : (phi(i - 1) + phi(i)) / 2;
+      const right = i === v.last ? Math.PI : (phi(i) + phi(i + 1)) / 2;
+      const x = 1 - 2 * grid.s[i]!;
+      const density = Math.abs(q(x)) / restRoot(x, 2 * index, 2 * index + 1);
+      mass[i] = Number.isFinite(density) ? density * Math.abs(right - left) : 0;
+    }
+  });
+  const cumulative = new Float64Array(n + 1);
+  for (let i = 0; i < n; i++) cumulative[i + 1] = cumulative[i]! + mass[i]!;
   const total = cumulative[n]!;
   let i = 0;
-  for (let k = 0; k < want; k++) {
-    const target = (total * (k + 0.5)) / want;
+  for (let kk = 0; kk < want; kk++) {
+    const target = (total * (kk + 0.5)) / want;
     while (i < n - 1 && cumulative[i + 1]! < target) i++;
     // Keep indices strictly increasing with room left for the points still to come.
-    const lowest = k === 0 ? 0 : ext[k - 1]! + 1;
-    const highest = n - (want - k);
-    ext[k] = Math.min(Math.max(i, lowest), highest);
+    const lowest = kk === 0 ? 0 : ext[kk - 1]! + 1;
+    const highest = n - (want - kk);
+    ext[kk] = Math.min(Math.max(i, lowest), highest);
   }
 }
 
@@ -582,7 +664,10 @@ export function remezExchange(p: RemezProblem): RemezSolution {
   }
   const warnings: DesignWarning[] = [];
   let ext: Int32Array = new Int32Array(r + 1);
-  initialReference(grid, ext);
+  if (p.start === "uniform") {
+    for (let j = 0; j < r; j++) ext[j] = Math.floor((j * (n - 1)) / r);
+    ext[r] = n - 1;
+  } else initialReference(grid, ext);
 
   const nz = r + 1;
   const ns = new Float64Array(nz);
