@@ -1,5 +1,6 @@
 import { requireFinite, requireInteger, requireSampleRate, show } from "../_validate.ts";
 import { designWindow } from "./_design_window.ts";
+import { inverseRealFft } from "../fft/real_fft.ts";
 import type { DesignWindow } from "./types.ts";
 
 /** Specification of a frequency-sampling FIR. */
@@ -159,38 +160,19 @@ export function designFrequencySampling(options: FrequencySamplingOptions): Floa
       wanted[k] = gains[seg]! + ((gains[seg + 1]! - gains[seg]!) * (f - fa)) / (fb - fa);
     }
   }
-  // h[n] = (1/size)·[X_0 + X_K·(−1)^n + 2·Σ_{k=1}^{K−1} Re(X_k e^{j2πkn/size})],
-  // X_k = wanted_k·e^{−jπk(N−1)/(2K)} (·j when antisymmetric); Im X_0, Im X_K are dropped.
-  const cosTable = new Float64Array(size);
-  const sinTable = new Float64Array(size);
-  for (let i = 0; i < size; i++) {
-    cosTable[i] = Math.cos((2 * Math.PI * i) / size);
-    sinTable[i] = Math.sin((2 * Math.PI * i) / size);
-  }
-  const phase = (k: number): [number, number] => {
-    const angle = (-Math.PI * k * (length - 1)) / (2 * half);
-    const c = Math.cos(angle);
-    const s = Math.sin(angle);
-    return antisymmetric ? [-s, c] : [c, s];
-  };
+  // h[n] = (1/size)·Σ_k X_k e^{j2πkn/size} with X_{size−k} = X_k*: an inverse real
+  // DFT of X_k = wanted_k·e^{−jπk(N−1)/(2K)} (·j when antisymmetric), Im X_0 and
+  // Im X_K dropped; only the first N samples are kept.
   const xr = new Float64Array(points);
   const xi = new Float64Array(points);
   for (let k = 0; k < points; k++) {
-    const [c, s] = phase(k);
-    xr[k] = wanted[k]! * c;
-    xi[k] = wanted[k]! * s;
+    const angle = (-Math.PI * k * (length - 1)) / (2 * half);
+    const c = Math.cos(angle);
+    const s = Math.sin(angle);
+    xr[k] = wanted[k]! * (antisymmetric ? -s : c);
+    xi[k] = wanted[k]! * (antisymmetric ? c : s);
   }
-  const taps = new Float64Array(length);
-  for (let n = 0; n < length; n++) {
-    let sum = xr[0]! + xr[half]! * (n % 2 === 0 ? 1 : -1);
-    let index = 0;
-    for (let k = 1; k < half; k++) {
-      index += n;
-      if (index >= size) index %= size;
-      sum += 2 * (xr[k]! * cosTable[index]! - xi[k]! * sinTable[index]!);
-    }
-    taps[n] = sum / size;
-  }
+  const taps = inverseRealFft({ re: xr, im: xi }, size).slice(0, length);
   const w = designWindow(length, options.window ?? "hamming");
   for (let n = 0; n < length; n++) taps[n]! *= w[n]!;
   if (antisymmetric && odd) taps[(length - 1) / 2] = 0;
