@@ -45,8 +45,12 @@ def main():
         "versions": {"numpy": np.__version__, "scipy": scipy.__version__},
         # source: numpy.fft.rfft (pocketfft)
         "realFft65536": timing(lambda: np.fft.rfft(x16), repeats=40, inner=20),
-        # source: scipy.signal.lfilter, direct-form filter routine, a = [1]
+        # source: scipy.signal.lfilter, a = [1]. SciPy 1.10 hands an FIR (len(a) == 1)
+        # to numpy.convolve (a vectorised dot product per output sample).
         "fir255x1e6": timing(lambda: sig.lfilter(h, one, x6), repeats=7),
+        # The same filter with a = [1, 0], which sends lfilter through its own C
+        # transposed direct-form II loop (for information; not the target).
+        "fir255x1e6GeneralLoop": timing(lambda: sig.lfilter(h, np.array([1.0, 0.0]), x6), repeats=3),
     }
     json.dump(result, sys.stdout)
     print()
