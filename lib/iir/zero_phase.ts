@@ -7,8 +7,9 @@ import { runSections } from "./_run.ts";
 export interface ZeroPhaseOptions {
   /**
    * Samples added at each end by odd reflection before filtering; must be
-   * smaller than the signal length. @default 3·(2K + 1) for K sections, less
-   * the number of first-order sections (both b2 and a2 zero) counted once each
+   * smaller than the signal length.
+   * @default 3·(2K + 1 − m) for K sections, m = min(number of sections with
+   * b2 = 0, number with a2 = 0) (first-order sections need less settling)
    */
   padLength?: number;
 }

@@ -97,3 +97,10 @@ Deno.test("polynomialRoots finds a root near 3e15 beside roots near 1", () => {
     "spread roots",
   );
 });
+
+Deno.test("polynomialRoots: a 4-fold root is found to about ε^(1/4)", () => {
+  // common practice (Wilkinson): an m-fold root is determined only to ~ε^(1/m) by rounded coefficients.
+  const r = polynomialRoots([1, -4, 6, -4, 1]); // (x − 1)⁴
+  assert.equal(r.length, 4);
+  for (const z of r) assert.ok(Math.hypot(z.re - 1, z.im) < 1e-3, `${z.re}+${z.im}j`);
+});
