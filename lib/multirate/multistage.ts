@@ -1,6 +1,10 @@
 import { requireFinite, requireInteger, requireSampleRate, show } from "../_validate.ts";
 import { estimateEquirippleLength } from "../fir/equiripple_length.ts";
 import type { DesignBand } from "../fir/types.ts";
+import { designEquiripple } from "../fir/equiripple.ts";
+import { measureBands } from "../fir/band_error.ts";
+import type { DesignWarning } from "../types.ts";
+import { decimatePolyphase } from "./resample.ts";
 
 /** Overall specification of a decimator for {@link planMultistageDecimator}. */
 export interface MultistageDecimatorSpec {
@@ -37,6 +41,10 @@ export interface DecimatorStage {
   length: number;
   /** Passband ripple allotted to this stage, dB peak to peak. */
   passbandRippleDb: number;
+  /** The same as a linear deviation δp/K. */
+  passbandDeviation: number;
+  /** Stopband deviation δs required of the stage (linear). */
+  stopbandDeviation: number;
   /** Bands and weights ready for designEquiripple (fs = inputRate). */
   bands: DesignBand[];
   /** Multiplications per second: length × output rate (polyphase, no symmetry used). */
@@ -181,6 +189,8 @@ function stagesFor(
       stopbandEdge,
       length,
       passbandRippleDb: rippleDb,
+      passbandDeviation: stageDp,
+      stopbandDeviation: ds,
       bands: [
         { from: 0, to: fp, gain: 1, weight: 1 },
         { from: stopbandEdge, to: inputRate / 2, gain: 0, weight: stageDp / ds },
@@ -188,4 +198,128 @@ function stagesFor(
       multiplicationsPerSecond: length * outputRate,
     };
   });
+}
+
+/** One designed stage of a multistage decimator. */
+export interface DesignedDecimatorStage {
+  /** Decimation factor of the stage. */
+  factor: number;
+  /** Input sample rate of the stage in Hz. */
+  inputRate: number;
+  /** Equiripple taps at the stage's input rate. */
+  taps: Float64Array;
+  /** Measured peak passband deviation and stopband gain (linear). */
+  passbandDeviation: number;
+  stopbandGain: number;
+}
+
+/** Result of {@link designMultistageDecimator}. */
+export interface MultistageDecimatorDesign {
+  /** Stages in processing order. */
+  stages: DesignedDecimatorStage[];
+  /** Stages that still miss their share of the spec after the extra taps allowed. */
+  warnings: DesignWarning[];
+}
+
+/**
+ * Design the stages of a planned multistage decimator: each stage is an
+ * equiripple lowpass (Parks–McClellan) with the plan's bands and weights,
+ * starting at the plan's estimated length and growing by one tap at a time
+ * (up to `maxExtraTaps`) until its measured passband deviation and stopband
+ * gain meet the stage's share of the spec.
+ *
+ * Source: Crochiere and Rabiner, IEEE Trans. ASSP 23(5), 1975 (stage
+ * specifications); Parks–McClellan design per stage (see designEquiripple).
+ *
+ * @param plan A plan from {@link planMultistageDecimator}.
+ * @param maxExtraTaps Taps a stage may grow beyond its estimate, 0 … 64. @default 8
+ * @returns The designed stages and any warnings.
+ * @throws {RangeError} When maxExtraTaps is out of range.
+ * @throws {ConvergenceError} When a stage's equiripple design fails.
+ * @example
+ * ```ts
+ * import { designMultistageDecimator, planMultistageDecimator } from "./multistage.ts";
+ * const plan = planMultistageDecimator({
+ *   fs: 48000, factor: 8, passbandEdge: 2000, passbandRippleDb: 0.2, stopbandAttenuationDb: 60,
+ * });
+ * const design = designMultistageDecimator(plan);
+ * if (design.warnings.length > 0) throw new Error("every stage met");
+ * if (!design.stages.every((s) => s.stopbandGain <= 1e-3)) throw new Error("60 dB per stage");
+ * ```
+ */
+export function designMultistageDecimator(
+  plan: MultistagePlan,
+  maxExtraTaps = 8,
+): MultistageDecimatorDesign {
+  requireInteger("Extra taps", maxExtraTaps, 0, 64);
+  const warnings: DesignWarning[] = [];
+  const stages = plan.stages.map((s, index) => {
+    let best: DesignedDecimatorStage | undefined;
+    for (let extra = 0; extra <= maxExtraTaps; extra++) {
+      const d = designEquiripple({
+        length: Math.max(3, s.length + extra),
+        fs: s.inputRate,
+        bands: s.bands,
+      });
+      const [pass, stop] = measureBands(d.taps, s.inputRate, s.bands);
+      best = {
+        factor: s.factor,
+        inputRate: s.inputRate,
+        taps: d.taps,
+        passbandDeviation: pass!.maxDeviation,
+        stopbandGain: stop!.maxGain,
+      };
+      if (
+        best.passbandDeviation <= s.passbandDeviation && best.stopbandGain <= s.stopbandDeviation
+      ) {
+        return best;
+      }
+    }
+    warnings.push({
+      code: "stage-short",
+      message: `Stage ${index + 1} (×${s.factor}) misses its share of the spec with ${
+        best!.taps.length
+      } taps: passband deviation ${best!.passbandDeviation.toExponential(2)} (wanted ${
+        s.passbandDeviation.toExponential(2)
+      }), stopband gain ${best!.stopbandGain.toExponential(2)} (wanted ${
+        s.stopbandDeviation.toExponential(2)
+      }).`,
+    });
+    return best!;
+  });
+  return { stages, warnings };
+}
+
+/**
+ * Run a signal through a designed multistage decimator, stage by stage with
+ * polyphase decimation (only kept outputs are computed).
+ *
+ * Source: Crochiere and Rabiner, Multirate Digital Signal Processing, 1983, §5.
+ *
+ * @param signal Input samples at the plan's input rate.
+ * @param design Stages from {@link designMultistageDecimator}.
+ * @returns Samples at the output rate (⌈N/M₁⌉, then ⌈·/M₂⌉, …).
+ * @throws {TypeError} When the signal holds non-finite values.
+ * @example
+ * ```ts
+ * import { decimateMultistage } from "./multistage.ts";
+ * const design = {
+ *   stages: [
+ *     { factor: 2, inputRate: 4, taps: Float64Array.of(1), passbandDeviation: 0, stopbandGain: 0 },
+ *     { factor: 2, inputRate: 2, taps: Float64Array.of(1), passbandDeviation: 0, stopbandGain: 0 },
+ *   ],
+ *   warnings: [],
+ * };
+ * if (decimateMultistage([1, 2, 3, 4, 5, 6, 7, 8], design).join() !== "1,5") {
+ *   throw new Error("every fourth sample");
+ * }
+ * ```
+ */
+export function decimateMultistage(
+  signal: ArrayLike<number>,
+  design: MultistageDecimatorDesign,
+): Float64Array {
+  let x: Float64Array = Float64Array.from(signal);
+  for (const stage of design.stages) x = decimatePolyphase(x, stage.factor, { taps: stage.taps });
+  return x;
 }
