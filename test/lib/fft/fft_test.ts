@@ -156,6 +156,9 @@ Deno.test("bad input to the FFT functions", () => {
   const cases: [() => unknown, ErrorConstructor, string][] = [
     [() => realFft([]), RangeError, "at least 1"],
     [() => realFft([1, Number.NaN]), TypeError, "Signal[1]"],
+    [() => realFft(Float64Array.of(1, 2, Infinity, 4)), TypeError, "Signal[2]"],
+    [() => realFft(Float64Array.of(1, -Infinity, 3, 4, 5)), TypeError, "Signal[1]"],
+    [() => realFft(Float64Array.of(Number.NaN, 0), { size: 8 }), TypeError, "Signal[0]"],
     [() => realFft([1, 2, 3], { size: 2 }), RangeError, "Transform size must be at least 3"],
     [() => realFft([1, 2], { size: 2.5 }), RangeError, "must be an integer"],
     [() => complexFft({ re: [1, 2], im: [1] }), TypeError, "imaginary part must have"],
