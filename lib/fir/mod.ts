@@ -23,3 +23,4 @@ export * from "./frequency_sampling.ts";
 export * from "./halfband.ts";
 export * from "./linear_phase.ts";
 export * from "./zeros.ts";
+export * from "./kaiser_design.ts";
