@@ -24,3 +24,5 @@ export * from "./halfband.ts";
 export * from "./linear_phase.ts";
 export * from "./zeros.ts";
 export * from "./kaiser_design.ts";
+export * from "./overlap_add.ts";
+export * from "./streaming.ts";
