@@ -213,67 +213,94 @@ async function commandCheck(args: string[]): Promise<number> {
     console.log(messages.cli.checkUsage);
     return 0;
   }
-  let failed = 0;
-  for (const file of await collect(positional)) {
-    const problems: string[] = [];
+  const files = await collect(positional);
+  const problems = new Map<string, string[]>(files.map((f) => [f, []]));
+  const modules: { file: string; source: string; module: string }[] = [];
+  for (const file of files) {
     try {
       const ws = parseWorksheet(file, await Deno.readTextFile(file));
       const assembly = assembleWorksheet(ws);
       for (const p of assembly.problems) {
-        problems.push(
+        problems.get(file)!.push(
           `${p.path}:${p.line}:${p.column ?? 1}: ${p.message}\n  ${p.line} | ${p.excerpt ?? ""}`,
         );
       }
-      if (problems.length === 0) {
-        problems.push(...(await typeCheck(file, ws.source, assembly.module)));
+      if (assembly.problems.length === 0) {
+        modules.push({ file, source: ws.source, module: assembly.module });
       }
     } catch (error) {
       if (!(error instanceof WorksheetError)) throw error;
       const p = error.problem;
-      problems.push(`${p.path}:${p.line}: ${p.message}`);
+      problems.get(file)!.push(`${p.path}:${p.line}: ${p.message}`);
     }
-    if (problems.length === 0) console.log(`${paint("32", "ok")}  ${file}`);
+  }
+  for (const [file, found] of await typeCheck(modules)) problems.get(file)!.push(...found);
+  let failed = 0;
+  for (const file of files) {
+    const found = problems.get(file)!;
+    if (found.length === 0) console.log(`${paint("32", "ok")}  ${file}`);
     else {
       failed++;
       console.log(`${paint("31", "error")}  ${file}`);
-      for (const p of problems) console.error(`  ${p}`);
+      for (const p of found) console.error(`  ${p}`);
     }
   }
   return failed === 0 ? 0 : exitCodes.failed;
 }
 
-async function typeCheck(file: string, source: string, module: string): Promise<string[]> {
+/**
+ * Type-check assembled worksheets in one `deno check` run (one compiler
+ * start for all of them) and map each diagnostic to its worksheet line.
+ */
+async function typeCheck(
+  modules: { file: string; source: string; module: string }[],
+): Promise<Map<string, string[]>> {
+  const found = new Map<string, string[]>();
+  if (modules.length === 0) return found;
   const dir = await Deno.makeTempDir({ prefix: "tapsheet-check-" });
-  const path = join(dir, basename(file).replace(/\.md$/i, "") + ".ts");
   try {
-    // The harness defines the block marker at run time; declare it for the checker.
-    // Appended after the last line, so worksheet line numbers are unchanged.
-    await Deno.writeTextFile(
-      path,
-      `${module}declare function ${blockMarker}(index: number): void;\n`,
-    );
+    const byUrl = new Map<string, (typeof modules)[number]>();
+    const paths: string[] = [];
+    for (const [i, m] of modules.entries()) {
+      const path = join(dir, `${i}-${basename(m.file).replace(/\.md$/i, "")}.ts`);
+      // The harness defines the block marker at run time; declare it for the checker.
+      // Appended after the last line, so worksheet line numbers are unchanged.
+      await Deno.writeTextFile(
+        path,
+        `${m.module}declare function ${blockMarker}(index: number): void;\n`,
+      );
+      byUrl.set(pathToFileURL(path).href, m);
+      paths.push(path);
+    }
     const out = await new Deno.Command(Deno.execPath(), {
-      args: ["check", "--quiet", `--config=${join(projectRoot, "deno.json")}`, path],
+      args: ["check", "--quiet", `--config=${join(projectRoot, "deno.json")}`, ...paths],
       env: { NO_COLOR: "1", RUST_BACKTRACE: "0" },
       stdout: "piped",
       stderr: "piped",
     }).output();
-    if (out.success) return [];
-    const text = new TextDecoder().decode(out.stderr);
-    const lines = source.split("\n");
-    const problems: string[] = [];
-    const re = /(TS\d+ \[ERROR\]|SyntaxError): ([^\n]*)[\s\S]*?at file:\/\/\S+?:(\d+):(\d+)/g;
+    if (out.success) return found;
+    let text = new TextDecoder().decode(out.stderr);
+    const re = /(TS\d+ \[ERROR\]|SyntaxError): ([^\n]*)[\s\S]*?at (file:\/\/\S+?):(\d+):(\d+)/g;
+    let matched = false;
     for (let m = re.exec(text); m !== null; m = re.exec(text)) {
-      const line = Number(m[3]);
-      problems.push(
-        `${file}:${line}:${m[4]}: ${m[2]} (${m[1]!.replace(" [ERROR]", "")})\n  ${line} | ${
-          lines[line - 1] ?? ""
-        }`,
+      const source = byUrl.get(m[3]!);
+      if (!source) continue;
+      matched = true;
+      const line = Number(m[4]);
+      const excerpt = source.source.split("\n")[line - 1] ?? "";
+      const list = found.get(source.file) ?? [];
+      list.push(
+        `${source.file}:${line}:${m[5]}: ${m[2]} (${
+          m[1]!.replace(" [ERROR]", "")
+        })\n  ${line} | ${excerpt}`,
       );
+      found.set(source.file, list);
     }
-    return problems.length > 0
-      ? problems
-      : [text.trim().replaceAll(pathToFileURL(path).href, file)];
+    if (!matched) {
+      for (const [url, m] of byUrl) text = text.replaceAll(url, m.file);
+      found.set(modules[0]!.file, [text.trim()]);
+    }
+    return found;
   } finally {
     await Deno.remove(dir, { recursive: true }).catch(() => {});
   }

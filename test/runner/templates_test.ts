@@ -69,3 +69,23 @@ Deno.test("new: scaffolds a worksheet from a template and refuses to overwrite",
     await Deno.remove(dir, { recursive: true });
   }
 });
+
+Deno.test("every demo worksheet and template type-checks", async () => {
+  const out = await new Deno.Command(Deno.execPath(), {
+    args: [
+      "run",
+      "-A",
+      `--config=${join(root, "deno.json")}`,
+      join(root, "runner", "cli.ts"),
+      "check",
+      join(root, "worksheets"),
+      templates,
+    ],
+    env: { NO_COLOR: "1" },
+    stdout: "piped",
+    stderr: "piped",
+  }).output();
+  const text = new TextDecoder().decode(out.stdout) + new TextDecoder().decode(out.stderr);
+  assert.equal(out.code, 0, text);
+  assert.ok((text.match(/^ok {2}/gm) ?? []).length >= 10, text);
+});
