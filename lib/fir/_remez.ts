@@ -10,6 +10,7 @@
 
 import type { DesignWarning } from "../types.ts";
 import { kernel } from "../fft/_fftjs.ts";
+import { complexFft } from "../fft/complex_fft.ts";
 import type { FftKernel } from "../fft/_fftjs.ts";
 
 /** What the approximation is of: flat bands, a Hilbert transformer or a differentiator. */
@@ -167,23 +168,26 @@ function barycentricWeights(s: Float64Array, c: Float64Array): Float64Array {
   let lower = 0;
   while (lower < n && s[lower]! <= 0.5) lower++;
   for (let j = 0; j < n; j++) {
+    // Π_{k≠j}(x_j − x_k), without the common factor 2^(n−1) (it cancels in every
+    // use): s_k − s_j for two points with ω ≤ π/2, c_j − c_k otherwise.
     let m = 1;
     let e = 0;
     const sj = s[j]!;
     const cj = c[j]!;
-    // A factor is at most 4 and, for any practical length, far above 2^-100: eight
-    // of them cannot carry the product past the double range between rescalings.
-    for (let k = 0; k < n; k++) {
-      if (k !== j) m *= j < lower && k < lower ? 2 * (s[k]! - sj) : 2 * (cj - c[k]!);
-      if ((k & 7) === 7) {
-        const a = Math.abs(m);
-        if (a > big) {
-          m *= small;
-          e += 200;
-        } else if (a < small) {
-          m *= big;
-          e -= 200;
-        }
+    const split = j < lower ? lower : 0;
+    for (let k = 0; k < n; k += 8) {
+      const end = Math.min(n, k + 8);
+      for (let i = k; i < end; i++) {
+        if (i === j) continue;
+        m *= i < split ? s[i]! - sj : cj - c[i]!;
+      }
+      const a = Math.abs(m);
+      if (a > big) {
+        m *= small;
+        e += 200;
+      } else if (a < small) {
+        m *= big;
+        e -= 200;
       }
     }
     signs[j] = m < 0 ? -1 : 1;
@@ -443,6 +447,7 @@ class CosineFit {
   readonly a: number;
   readonly b: number;
   private readonly work: Float64Array;
+  private readonly extended: Float64Array;
   constructor(readonly r: number, sHigh: number, cLow: number) {
     // x ranges over [2cLow − 1, 1 − 2sHigh]; a = half-width, b = centre.
     this.a = 1 - sHigh - cLow;
@@ -459,6 +464,7 @@ class CosineFit {
     this.table = new Float64Array(4 * r);
     for (let i = 0; i < 4 * r; i++) this.table[i] = Math.cos((Math.PI * i) / (2 * r));
     this.values = new Float64Array(r);
+    this.extended = new Float64Array(2 * r);
     this.work = new Float64Array(3 * (r + 2));
   }
 
@@ -466,16 +472,16 @@ class CosineFit {
   coefficients(values: Float64Array, alpha: Float64Array): void {
     const r = this.r;
     const period = 4 * r;
-    // Chebyshev coefficients in t: (2/r)·Σ_m P(t_m) T_k(t_m), halved for k = 0.
+    // Chebyshev coefficients in t: (2/r)·Σ_m P(t_m) T_k(t_m), halved for k = 0 — a
+    // DCT-II, computed by one complex FFT of the even extension of length 2r:
+    // Σ_m v_m cos(πk(2m+1)/(2r)) = ½·Re(e^(−jπk/(2r))·V_k).
+    const extended = this.extended;
+    for (let m = 0; m < r; m++) extended[m] = extended[2 * r - 1 - m] = values[m]!;
+    const spectrum = complexFft({ re: extended });
     for (let k = 0; k < r; k++) {
-      let sum = 0;
-      let index = k;
-      const step = 2 * k;
-      for (let m = 0; m < r; m++) {
-        sum += values[m]! * this.table[index]!;
-        index += step;
-        while (index >= period) index -= period;
-      }
+      const c = this.table[k]!; // cos(πk/(2r))
+      const sn = this.table[(k + 3 * r) % period]!; // cos(πk/(2r) − π/2·…) = sin(πk/(2r))
+      const sum = 0.5 * (spectrum.re[k]! * c + spectrum.im[k]! * sn);
       alpha[k] = ((k === 0 ? 1 : 2) * sum) / r;
     }
     if (this.mapped) this.rewriteInX(alpha);
