@@ -5,12 +5,15 @@ import type { DesignBand } from "./types.ts";
 
 /** How one band of a specification is met. */
 export interface BandMeasurement {
-  /** Band edges in Hz and wanted gain, as given. */
+  /** Lower band edge in Hz, as given. */
   from: number;
+  /** Upper band edge in Hz, as given. */
   to: number;
+  /** Wanted gain (linear), as given. */
   gain: number;
-  /** Smallest and largest magnitude |H| found in the band (linear). */
+  /** Smallest magnitude |H| found in the band (linear). */
   minGain: number;
+  /** Largest magnitude |H| found in the band (linear). */
   maxGain: number;
   /** Largest | |H| − wanted | in the band (linear; wanted interpolates gain → endGain). */
   maxDeviation: number;

@@ -74,6 +74,8 @@ export interface EquirippleDesign {
  */
 export class ConvergenceError extends Error {
   /**
+   * Create the error.
+   *
    * @param message What failed and what to change.
    */
   constructor(message: string) {

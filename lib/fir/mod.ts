@@ -8,6 +8,11 @@
  * linear amplitudes (1 pass, 0 stop), attenuations and ripples are in dB only
  * where a name says so. Designed taps are symmetric (linear phase) unless a
  * function says otherwise. Windows used for design are the symmetric form.
+ * Linear-phase types: symmetric taps with odd N (I) or even N (II, zero at fs/2);
+ * antisymmetric with odd N (III, zeros at 0 and fs/2) or even N (IV, zero at 0).
+ * Soft numeric trouble comes back as `warnings: DesignWarning[]` in a design's
+ * result; an equiripple exchange that cannot give a trustworthy filter throws
+ * `ConvergenceError` with a message saying what to change.
  *
  * @module
  */

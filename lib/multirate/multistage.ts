@@ -31,11 +31,13 @@ export interface MultistageDecimatorSpec {
 export interface DecimatorStage {
   /** Decimation factor of this stage. */
   factor: number;
-  /** Input and output sample rates in Hz. */
+  /** Input sample rate in Hz. */
   inputRate: number;
+  /** Output sample rate in Hz (input rate ÷ factor). */
   outputRate: number;
-  /** Passband edge (Hz, the overall one) and this stage's stopband edge (Hz). */
+  /** Passband edge in Hz (the overall one). */
   passbandEdge: number;
+  /** This stage's stopband edge in Hz: its output rate − the final stopband edge. */
   stopbandEdge: number;
   /** Estimated number of taps (Herrmann–Rabiner–Chan). */
   length: number;
@@ -208,8 +210,9 @@ export interface DesignedDecimatorStage {
   inputRate: number;
   /** Equiripple taps at the stage's input rate. */
   taps: Float64Array;
-  /** Measured peak passband deviation and stopband gain (linear). */
+  /** Measured peak passband deviation (linear). */
   passbandDeviation: number;
+  /** Measured peak stopband gain (linear). */
   stopbandGain: number;
 }
 
