@@ -102,8 +102,12 @@ export async function executeWorksheet(
       }
     };
     const timer = setTimeout(() => stop("timeout"), timeoutSeconds * 1000);
-    const watchdog = setInterval(() => {
-      if (residentMb(child.pid) > memoryMb + runtimeMarginMb) stop("memory limit");
+    let polling = false;
+    const watchdog = setInterval(async () => {
+      if (polling) return;
+      polling = true;
+      if ((await residentMb(child.pid)) > memoryMb + runtimeMarginMb) stop("memory limit");
+      polling = false;
     }, 50);
 
     let printed = 0;
@@ -242,16 +246,41 @@ function childEnvironment(): Record<string, string> {
   return env;
 }
 
-/** Resident set size of a process in MB, from /proc; 0 where unavailable. */
-function residentMb(pid: number): number {
-  try {
-    const status = Deno.readTextFileSync(`/proc/${pid}/status`);
-    const m = /VmRSS:\s+(\d+)\s+kB/.exec(status);
-    return m ? Number(m[1]) / 1024 : 0;
-  } catch {
-    return 0;
+/**
+ * Resident set size of a process in MB. Reads /proc/PID/status, which Deno
+ * allows only with --allow-all; without it, asks `ps` instead. Returns 0
+ * (and warns once) when neither works, so the caller can say so.
+ */
+async function residentMb(pid: number): Promise<number> {
+  if (rssSource === "proc") {
+    try {
+      const status = Deno.readTextFileSync(`/proc/${pid}/status`);
+      const m = /VmRSS:\s+(\d+)\s+kB/.exec(status);
+      return m ? Number(m[1]) / 1024 : 0;
+    } catch (error) {
+      if (!(error instanceof Deno.errors.NotCapable)) return 0; // the process has just ended
+      rssSource = "ps";
+    }
   }
+  if (rssSource === "ps") {
+    try {
+      const out = await new Deno.Command("ps", {
+        args: ["-o", "rss=", "-p", String(pid)],
+        stdout: "piped",
+        stderr: "null",
+      })
+        .output();
+      const kb = Number(new TextDecoder().decode(out.stdout).trim());
+      return Number.isFinite(kb) ? kb / 1024 : 0;
+    } catch {
+      rssSource = "none";
+      console.error(messages.execute.noWatchdog);
+    }
+  }
+  return 0;
 }
+
+let rssSource: "proc" | "ps" | "none" = "proc";
 
 /**
  * Find the worksheet line of a failure: the first `module:line:col` in the

@@ -54,6 +54,8 @@ export const messages = {
     notCapable: (detail: string) =>
       `Blocked by the sandbox: ${detail}. Worksheets cannot use the network, write files, run programs, read environment variables, or read outside the library and their own folder`,
     notRun: "Not run: an earlier block failed",
+    noWatchdog:
+      "tapsheet: cannot read the worksheet process's memory use (no /proc access and no 'ps'); only the JavaScript heap cap applies",
   },
   cli: {
     usage: `tapsheet: turn filter-design worksheets into signed-off design reports
