@@ -15,9 +15,17 @@ export function preloadRenderer(): Promise<[Vega, VegaLite]> {
   return loading;
 }
 
+let rendered = 0;
+
+/** How many figures this process has rendered (unchanged figures are reused, not rendered). */
+export function renderCount(): number {
+  return rendered;
+}
+
 /** Render a vega-lite specification to SVG markup. */
 export async function vegaLiteToSvg(spec: Record<string, unknown>): Promise<string> {
   const [vega, vegaLite] = await preloadRenderer();
+  rendered++;
   const compiled = vegaLite.compile(spec as never).spec;
   const view = new vega.View(vega.parse(compiled), { renderer: "none" });
   const svg = await view.toSVG();

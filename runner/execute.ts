@@ -2,7 +2,8 @@
 import { basename, dirname, join, resolve } from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
 import { assembleWorksheet } from "./assemble.ts";
-import type { HarnessInput, HarnessMessage } from "./harness.ts";
+import { decodeNumbers } from "./harness_protocol.ts";
+import type { HarnessInput, HarnessMessage } from "./harness_protocol.ts";
 import { messages } from "./messages.ts";
 import type {
   BlockResult,
@@ -124,7 +125,7 @@ export async function executeWorksheet(
         if (line.trim() !== "") addExhibit(current, { type: "output", text: line });
         return;
       }
-      const message = JSON.parse(line.slice(nonce.length)) as HarnessMessage;
+      const message = JSON.parse(line.slice(nonce.length), decodeNumbers) as HarnessMessage;
       switch (message.kind) {
         case "block":
           current = message.index;

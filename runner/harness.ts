@@ -2,23 +2,8 @@
 // assembled worksheet module, and streams exhibits to the parent as lines of
 // JSON on standard output. Runs inside the sandbox (see execute.ts).
 import { connectSheet } from "./sheet.ts";
-import type { Exhibit, ParamValue } from "./types.ts";
+import { type HarnessInput, type HarnessMessage, nonFiniteMark } from "./harness_protocol.ts";
 import { blockMarker } from "./assemble.ts";
-
-/** A line the child sends: a block started, an exhibit, an error, or the end. */
-export type HarnessMessage =
-  | { kind: "block"; index: number }
-  | { kind: "exhibit"; block: number; exhibit: Exhibit }
-  | { kind: "error"; block: number; name: string; message: string; stack: string }
-  | { kind: "done" };
-
-/** What the parent writes to the child's standard input. */
-export interface HarnessInput {
-  moduleUrl: string;
-  params: Record<string, ParamValue>;
-  /** Prefix of every protocol line, so stray output cannot pose as one. */
-  nonce: string;
-}
 
 const encoder = new TextEncoder();
 const stringify = JSON.stringify;
@@ -28,8 +13,12 @@ const exit = Deno.exit;
 const input = JSON.parse(await new Response(Deno.stdin.readable).text()) as HarnessInput;
 let current = -1;
 
+/** JSON has no Infinity or NaN; carry them as marked strings (see decodeNumbers). */
+const keepNonFinite = (_key: string, value: unknown) =>
+  typeof value === "number" && !Number.isFinite(value) ? `${nonFiniteMark}${value}` : value;
+
 function send(message: HarnessMessage): void {
-  const bytes = encoder.encode(`${input.nonce}${stringify(message)}\n`);
+  const bytes = encoder.encode(`${input.nonce}${stringify(message, keepNonFinite)}\n`);
   let written = 0;
   while (written < bytes.length) written += writeSync(bytes.subarray(written));
 }

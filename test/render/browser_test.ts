@@ -76,11 +76,18 @@ Deno.test({
           join(root, "worksheets", "pump_monitor_antialias.md"),
           "--out",
           out,
+          "--pdf",
         ],
         stdout: "null",
         stderr: "piped",
       }).output();
       assert.ok(cli.code === 0 || cli.code === 1, new TextDecoder().decode(cli.stderr));
+      // run --pdf wrote the printed report beside the page.
+      const printed = new TextDecoder("latin1").decode(
+        await Deno.readFile(join(out, "pump_monitor_antialias", "report.pdf")),
+      );
+      assert.match(printed, /^%PDF-/);
+      assert.ok((printed.match(/\/Type\s*\/Page[^s]/g)?.length ?? 0) >= 2);
       const url = pathToFileURL(join(out, "pump_monitor_antialias", "index.html")).href;
       await withPage(url, async (page) => {
         const figures = await page.evaluate<[string, number, number][]>(

@@ -175,13 +175,54 @@ for (const [what, args, code, message] of usage) {
 
 Deno.test("cli: --help on every command", async () => {
   for (
-    const args of [["--help"], ["run", "--help"], ["check", "--help"], ["new", "--help"], [
-      "verify",
-      "--help",
-    ]]
+    const args of [
+      ["--help"],
+      ["run", "--help"],
+      ["check", "--help"],
+      ["new", "--help"],
+      ["verify", "--help"],
+      ["watch", "--help"],
+    ]
   ) {
     const r = await tapsheet(args);
     assert.equal(r.code, 0, args.join(" "));
     assert.match(r.stdout, /tapsheet/);
+  }
+});
+
+Deno.test("cli: a parameters file overrides front matter, and --set overrides the file", async () => {
+  const out = await Deno.makeTempDir();
+  try {
+    const values = join(out, "values.yaml");
+    await Deno.writeTextFile(values, "taps: 81\nstopbandEdge: 1800\n");
+    const r = await tapsheet([
+      "run",
+      demo,
+      "--out",
+      out,
+      "--params",
+      values,
+      "--set",
+      "taps=101",
+      "--json",
+      "-",
+    ]);
+    const manifest = JSON.parse(
+      await Deno.readTextFile(join(out, "pump_monitor_antialias", "manifest.json")),
+    );
+    assert.equal(manifest.params.taps, 101);
+    assert.equal(manifest.params.stopbandEdge, 1800);
+    assert.equal(manifest.params.fs, 8000);
+    const html = await Deno.readTextFile(join(out, "pump_monitor_antialias", "index.html"));
+    assert.match(html, /<td>taps<\/td><td class="num">101<\/td><td>set for this run<\/td>/);
+    assert.match(html, /<td>fs<\/td><td class="num">8000<\/td><td>worksheet value<\/td>/);
+    assert.match(r.stdout, /"verdict": "(met|not met)"/);
+    const bad = join(out, "bad.yaml");
+    await Deno.writeTextFile(bad, "taps: many\n");
+    const rejected = await tapsheet(["run", demo, "--out", out, "--params", bad]);
+    assert.equal(rejected.code, 2);
+    assert.match(rejected.stderr, /'taps' must be a number, got '"many"'/);
+  } finally {
+    await Deno.remove(out, { recursive: true });
   }
 });

@@ -90,6 +90,13 @@ const cases: Case[] = [
     firstBlockRan: false,
   },
   {
+    file: "dynamic_import_remote",
+    outcome: "rejected",
+    message: /may not use import\(\)/,
+    line: 13,
+    firstBlockRan: false,
+  },
+  {
     file: "remote_import",
     outcome: "rejected",
     message: /not "https:\/\/example.invalid/,
