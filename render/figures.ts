@@ -81,6 +81,7 @@ const config = {
     labelFontSize: 11,
     orient: "bottom",
     direction: "horizontal",
+    labelLimit: 600,
     title: null,
   },
   title: {
@@ -123,7 +124,10 @@ export function figureToVegaLite(figure: FigureExhibit): Spec {
     field: "series",
     type: "nominal",
     scale: { domain: names, range: palette.series.slice(0, Math.max(1, names.length)) },
-    legend: names.length > 1 ? {} : null,
+    // Long series names get a row each so they stay inside the figure's width.
+    legend: names.length > 1
+      ? { columns: names.some((n) => n.length > 24) ? 1 : Math.min(names.length, 3) }
+      : null,
   };
   const mask = (figure.mask ?? []).map((m) =>
     scale === 1 ? m : { ...m, from: m.from / scale, to: m.to / scale }

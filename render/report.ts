@@ -283,7 +283,7 @@ export function reportHtml(input: ReportInput): string {
     results.filter((r) => r.met).length
   } of ${results.length} met</dd></div>
 </dl>
-<p class="verdict ${verdict.replace(" ", "-")}">${verdictText[verdict]}</p>
+<p class="overall ${verdict.replace(" ", "-")}">${verdictText[verdict]}</p>
 ${
     problem && (rejected || execution.outcome !== "error")
       ? `<div class="problem"><p><strong>${esc(problem.path)}:${problem.line}${

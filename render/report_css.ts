@@ -14,7 +14,7 @@ export function reportCss(identity: string): string {
   return `
 :root { color-scheme: light; }
 * { box-sizing: border-box; }
-body { margin: 0 auto; max-width: 52rem; padding: 2rem 1.5rem 4rem; font-family: ${fontStack};
+body { margin: 0 auto; max-width: 62rem; padding: 2rem 1.5rem 4rem; font-family: ${fontStack};
   font-size: 15px; line-height: 1.5; color: ${p.ink}; background: ${p.paper}; }
 h1 { font-size: 1.7rem; margin: 0.2rem 0 0.8rem; line-height: 1.25; }
 h2 { font-size: 1.3rem; margin: 2.2rem 0 0.8rem; padding-bottom: 0.3rem; border-bottom: 2px solid ${
@@ -28,11 +28,11 @@ h4, h5, h6 { font-size: 1rem; margin: 1.2rem 0 0.4rem; }
 .facts div { display: flex; gap: 0.4rem; }
 .facts dt { color: ${p.muted}; }
 .facts dd { margin: 0; font-weight: bold; }
-.verdict { display: inline-block; margin: 0.2rem 0 0; padding: 0.35rem 0.9rem; border-radius: 3px;
+.overall { display: inline-block; margin: 0.2rem 0 0; padding: 0.35rem 0.9rem; border-radius: 3px;
   font-weight: bold; color: #fff; }
-.verdict.met { background: ${p.pass}; }
-.verdict.not-met { background: ${p.fail}; }
-.verdict.incomplete, .verdict.no-requirements { background: ${p.incomplete}; }
+.overall.met { background: ${p.pass}; }
+.overall.not-met { background: ${p.fail}; }
+.overall.incomplete, .overall.no-requirements { background: ${p.incomplete}; }
 table { border-collapse: collapse; width: 100%; margin: 0.6rem 0 1rem; font-size: 0.9rem; }
 caption { text-align: left; font-weight: bold; padding-bottom: 0.3rem; }
 th, td { border-bottom: 1px solid ${p.rule}; padding: 0.3rem 0.5rem; text-align: left; vertical-align: top; }
@@ -43,6 +43,8 @@ table.requirements tr.met td.verdict { color: ${p.pass}; font-weight: bold; }
 table.requirements tr.not-met td.verdict { color: ${p.fail}; font-weight: bold; }
 table.requirements tr.not-met { background: #fbeceb; }
 table.requirements td.verdict { white-space: nowrap; }
+table.requirements { font-size: 0.84rem; }
+table.requirements td:nth-child(2) { min-width: 13rem; }
 table.requirements td.id { white-space: nowrap; font-family: 'DejaVu Sans Mono', monospace; font-size: 0.82rem; }
 .figure { margin: 1rem 0; text-align: center; break-inside: avoid; }
 .figure img { max-width: 100%; height: auto; }
@@ -83,7 +85,7 @@ a { color: ${p.series[2]}; }
   details.code:not([open]) { display: none; }
   details.coefficients > summary { list-style: none; }
   #signoff { break-before: page; }
-  .verdict { -webkit-print-color-adjust: exact; print-color-adjust: exact; }
+  .overall { -webkit-print-color-adjust: exact; print-color-adjust: exact; }
   a { color: inherit; text-decoration: none; }
 }
 `;

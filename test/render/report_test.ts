@@ -99,7 +99,7 @@ Deno.test("report: sections in the order reviewers read them", () => {
     .map((id) => html.indexOf(`<section id="${id}"`));
   assert.ok(order.every((i) => i > 0), String(order));
   assert.deepEqual([...order].sort((a, b) => a - b), order);
-  assert.ok(html.indexOf('class="verdict') < order[0]!);
+  assert.ok(html.indexOf('class="overall') < order[0]!);
   assert.match(html, /does not replace the reviewer's own judgment/);
 });
 
@@ -111,7 +111,7 @@ Deno.test("report: verdicts", () => {
     overallVerdict({ outcome: "completed", blocks: [], durationMs: 1 }),
     "no requirements",
   );
-  assert.match(reportHtml(input(completed(false))), /class="verdict not-met">Requirements not met/);
+  assert.match(reportHtml(input(completed(false))), /class="overall not-met">Requirements not met/);
 });
 
 Deno.test("report: worksheet headings sit below the report's own", () => {
