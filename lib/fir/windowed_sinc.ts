@@ -141,6 +141,12 @@ export function designWindowedSinc(options: WindowedSincOptions): Float64Array {
     const f = left === 0 ? 0 : right === 1 ? 1 : (left + right) / 2;
     let s = 0;
     for (let n = 0; n < length; n++) s += h[n]! * Math.cos(Math.PI * (n - middle) * f);
+    if (!(Math.abs(s) > 1e-300)) {
+      // E.g. a 2-tap Hann or Blackman window is all zeros: nothing is left to scale.
+      throw new RangeError(
+        `Number of taps must be large enough for the window to leave a non-zero filter, got ${length} taps with this window`,
+      );
+    }
     for (let n = 0; n < length; n++) h[n]! /= s;
   }
   // Exact symmetry, whatever the rounding of sin() on either side.

@@ -29,10 +29,28 @@ Deno.test("designWindowedSinc matches scipy.signal.firwin for every band shape",
   }
 });
 
-Deno.test("designWindowedSinc keeps the original lowpass call", () => {
-  const h = designWindowedSinc({ length: 31, fs: 8000, cutoff: 1000, window: "hann" });
-  assertClose(h.reduce((a, b) => a + b, 0), 1, { abs: 1e-14 }, "DC gain");
-  assert.equal(h.length, 31);
+Deno.test("designWindowedSinc lowpass: unit DC gain and symmetric taps for every window and length", () => {
+  // source: Oppenheim & Schafer, DTSP 3rd ed., §7.5: the window method scales for unit gain
+  // at DC, and a symmetric window times the symmetric ideal response gives symmetric
+  // (linear-phase) taps, h[n] = h[N−1−n].
+  for (const window of ["rectangular", "hann", "hamming", "blackman"] as const) {
+    for (const length of [1, 2, 15, 31, 64, 101]) {
+      if (length === 2 && (window === "hann" || window === "blackman")) {
+        // Both windows are zero at their ends, so 2 taps leave nothing (common practice).
+        assert.throws(
+          () => designWindowedSinc({ length, fs: 8000, cutoff: 1000, window }),
+          (e: unknown) => e instanceof RangeError && /non-zero filter, got \d taps/.test(e.message),
+        );
+        continue;
+      }
+      const h = designWindowedSinc({ length, fs: 8000, cutoff: 1000, window });
+      assert.equal(h.length, length);
+      assertClose(h.reduce((a, b) => a + b, 0), 1, { abs: 1e-14 }, `DC gain ${window} ${length}`);
+      for (let n = 0; n < length; n++) {
+        assert.equal(h[n], h[length - 1 - n], `symmetry ${window} ${length} at ${n}`);
+      }
+    }
+  }
 });
 
 Deno.test("Kaiser window method meets the spec its formulas were computed for", () => {

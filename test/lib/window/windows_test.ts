@@ -106,3 +106,32 @@ Deno.test("bad window parameters", () => {
     );
   }
 });
+
+Deno.test("cosine-sum windows follow their defining formulas", () => {
+  // source: F. J. Harris, Proc. IEEE 66(1), 1978, eqs. (27a) Hann, (30) Hamming, (32) Blackman;
+  // symmetric form with M = N − 1, periodic with M = N.
+  const formulas: [string, (n: number, o: WindowOptions) => Float64Array, (x: number) => number][] =
+    [
+      ["hann", hannWindow, (x) => 0.5 - 0.5 * Math.cos(2 * Math.PI * x)],
+      ["hamming", hammingWindow, (x) => 0.54 - 0.46 * Math.cos(2 * Math.PI * x)],
+      [
+        "blackman",
+        blackmanWindow,
+        (x) => 0.42 - 0.5 * Math.cos(2 * Math.PI * x) + 0.08 * Math.cos(4 * Math.PI * x),
+      ],
+    ];
+  for (const [name, make, formula] of formulas) {
+    for (const length of [2, 7, 16, 33]) {
+      const symmetric = Array.from({ length }, (_, n) => formula(n / (length - 1)));
+      const periodic = Array.from({ length }, (_, n) => formula(n / length));
+      assertClose(make(length, {}), symmetric, { abs: 1e-15 }, `${name} symmetric ${length}`);
+      assertClose(
+        make(length, { symmetry: "periodic" }),
+        periodic,
+        { abs: 1e-15 },
+        `${name} periodic ${length}`,
+      );
+    }
+  }
+  assertClose(rectangularWindow(5), [1, 1, 1, 1, 1], { abs: 0 }, "rectangular");
+});
