@@ -127,12 +127,14 @@ export function designWindowedSinc(options: WindowedSincOptions): Float64Array {
   const w = designWindow(length, options.window ?? "hamming");
   const middle = (length - 1) / 2;
   const h = new Float64Array(length);
+  let idealSize = 0;
   for (let n = 0; n < length; n++) {
     const m = n - middle;
     let sum = 0;
     for (let b = 0; b + 1 < edges.length; b += 2) {
       sum += edges[b + 1]! * sinc(edges[b + 1]! * m) - edges[b]! * sinc(edges[b]! * m);
     }
+    idealSize += Math.abs(sum);
     h[n] = sum * w[n]!;
   }
   if (options.scale ?? true) {
@@ -141,7 +143,7 @@ export function designWindowedSinc(options: WindowedSincOptions): Float64Array {
     const f = left === 0 ? 0 : right === 1 ? 1 : (left + right) / 2;
     let s = 0;
     for (let n = 0; n < length; n++) s += h[n]! * Math.cos(Math.PI * (n - middle) * f);
-    if (!(Math.abs(s) > 1e-300)) {
+    if (!(Math.abs(s) > 1e-9 * idealSize)) {
       // E.g. a 2-tap Hann or Blackman window is all zeros: nothing is left to scale.
       throw new RangeError(
         `Number of taps must be large enough for the window to leave a non-zero filter, got ${length} taps with this window`,
