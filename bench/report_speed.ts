@@ -55,10 +55,64 @@ for (let i = 0; i < runs; i++) {
   a.push(await ours(i));
   b.push(await theirs(i));
 }
+
+// The edit loop in watch mode.
+const sheet = join(scratch, "demo.md");
+const source = await Deno.readTextFile(join(root, "worksheets", "pump_monitor_antialias.md"));
+await Deno.writeTextFile(sheet, source);
+const watcher = new Deno.Command(Deno.execPath(), {
+  args: [
+    "run",
+    "-A",
+    `--config=${join(root, "deno.json")}`,
+    join(root, "runner", "cli.ts"),
+    "watch",
+    sheet,
+    "--out",
+    join(scratch, "watch"),
+  ],
+  env: { NO_COLOR: "1" },
+  stdout: "piped",
+  stderr: "null",
+}).spawn();
+const reader = watcher.stdout.pipeThrough(new TextDecoderStream()).getReader();
+let seen = "";
+const until = async (done: () => boolean) => {
+  while (!done()) {
+    const { value, done: ended } = await reader.read();
+    if (ended) throw new Error(`tapsheet watch stopped early; it printed:\n${seen}`);
+    seen += value;
+  }
+};
+await until(() => seen.includes("Watching"));
+const w: number[] = [];
+for (let i = 0; i < runs + 1; i++) {
+  const lines = (seen.match(/requirements met/g) ?? []).length;
+  const started = performance.now();
+  const taps = i % 2 === 0 ? 43 : 41;
+  await Deno.writeTextFile(sheet, source.replace(/(taps:\n\s+value: )41/, `$1${taps}`));
+  await until(() => (seen.match(/requirements met/g) ?? []).length > lines);
+  if (i > 0) w.push(performance.now() - started); // the first edit warms the watcher
+}
+watcher.kill();
+await watcher.status;
 await Deno.remove(scratch, { recursive: true });
+
 const ratio = median(b) / median(a);
-console.log(`tapsheet run (demo worksheet, 6 figures): median ${median(a).toFixed(0)} ms`);
-console.log(`SciPy + matplotlib script (6 figures):     median ${median(b).toFixed(0)} ms`);
+const loop = median(b) / median(w);
+console.log(`SciPy + matplotlib script (6 figures):          median ${median(b).toFixed(0)} ms`);
 console.log(
-  `speed-up: ${ratio.toFixed(2)}× (target: at least 3×) — ${ratio >= 3 ? "met" : "not met"}`,
+  `tapsheet run, whole command (demo, 6 figures):  median ${median(a).toFixed(0)} ms → ${
+    ratio.toFixed(2)
+  }×`,
+);
+console.log(
+  `tapsheet watch, save → report (6 new figures):  median ${median(w).toFixed(0)} ms → ${
+    loop.toFixed(2)
+  }×`,
+);
+console.log(
+  `target: warm, at least 3× — whole command ${ratio >= 3 ? "met" : "not met"}, edit loop ${
+    loop >= 3 ? "met" : "not met"
+  }`,
 );
