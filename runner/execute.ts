@@ -24,6 +24,11 @@ export interface ExecuteOptions {
   memoryMb?: number;
   /** Cap on everything the child prints, in MB. @default 16 */
   outputMb?: number;
+  /**
+   * The library as one bundled file (see library_bundle.ts), mapped to the
+   * import name "tapsheet". @default lib/mod.ts, loaded module by module
+   */
+  libraryModule?: string;
 }
 
 /** Root of the tapsheet project (the folder holding deno.json). */
@@ -68,13 +73,36 @@ export async function executeWorksheet(
   const moduleUrl = pathToFileURL(modulePath).href;
   try {
     await Deno.writeTextFile(modulePath, assembly.module);
+    // The runner's own import names, and nothing else: no deno.json is read,
+    // so a config file in the worksheet's folder cannot remap them.
+    const importMap = join(tempDir, "imports.json");
+    await Deno.writeTextFile(
+      importMap,
+      JSON.stringify({
+        imports: {
+          "tapsheet":
+            pathToFileURL(options.libraryModule ?? join(projectRoot, "lib", "mod.ts")).href,
+          "tapsheet/sheet": pathToFileURL(join(projectRoot, "runner", "sheet.ts")).href,
+          ...packageImports(),
+        },
+      }),
+    );
     const child = new Deno.Command(Deno.execPath(), {
       args: [
         "run",
         "--no-prompt",
         "--no-remote",
-        `--config=${join(projectRoot, "deno.json")}`,
-        `--allow-read=${join(projectRoot, "lib")},${dirname(worksheetPath)},${tempDir}`,
+        "--no-config",
+        `--import-map=${importMap}`,
+        `--lock=${join(projectRoot, "deno.lock")}`,
+        `--allow-read=${
+          [
+            join(projectRoot, "lib"),
+            dirname(worksheetPath),
+            tempDir,
+            ...(options.libraryModule ? [options.libraryModule] : []),
+          ].join(",")
+        }`,
         `--v8-flags=--max-old-space-size=${memoryMb},--disallow-code-generation-from-strings`,
         join(projectRoot, "runner", "harness.ts"),
       ],
@@ -235,6 +263,16 @@ function errorSummary(name: string, message: string): string {
   const first = message.split("\n")[0]!.trim();
   const inner = /^(\w*Error): (.*)$/.exec(first);
   return inner ? `${inner[1]}: ${inner[2]}` : `${name}: ${first}`;
+}
+
+/** The npm packages of tapsheet's import map (the library's own dependencies). */
+function packageImports(): Record<string, string> {
+  const config = JSON.parse(Deno.readTextFileSync(join(projectRoot, "deno.json")));
+  return Object.fromEntries(
+    Object.entries(config.imports as Record<string, string>).filter(([, t]) =>
+      t.startsWith("npm:")
+    ),
+  );
 }
 
 /** The few variables the child needs to find Deno's cache; nothing else passes. */

@@ -1,5 +1,7 @@
 // One worksheet from file to report: parse → execute → render.
-import { basename, dirname, join, relative } from "node:path";
+import { basename, dirname, join } from "node:path";
+import { hashOfFiles } from "./fingerprint.ts";
+import { libraryBundle } from "./library_bundle.ts";
 import { sha256Hex, writeReport } from "../render/write.ts";
 import { preloadRenderer } from "../render/svg.ts";
 import type { Manifest } from "../render/write.ts";
@@ -49,28 +51,7 @@ let toolHash: Promise<string> | undefined;
 
 /** SHA-256 over tapsheet's own code and lock file: a new version invalidates every report. */
 function hashOfTool(): Promise<string> {
-  toolHash ??= (async () => {
-    const parts: string[] = [];
-    const walk = async (dir: string) => {
-      const entries: Deno.DirEntry[] = [];
-      for await (const e of Deno.readDir(dir)) entries.push(e);
-      entries.sort((a, b) => a.name.localeCompare(b.name));
-      for (const e of entries) {
-        const path = join(dir, e.name);
-        if (e.isDirectory) await walk(path);
-        else if (e.isFile) {
-          parts.push(
-            `${relative(projectRoot, path)} ${await sha256Hex(await Deno.readFile(path))}`,
-          );
-        }
-      }
-    };
-    for (const dir of ["lib", "runner", "render"]) await walk(join(projectRoot, dir));
-    for (const file of ["deno.json", "deno.lock"]) {
-      parts.push(`${file} ${await sha256Hex(await Deno.readFile(join(projectRoot, file)))}`);
-    }
-    return sha256Hex(parts.join("\n"));
-  })();
+  toolHash ??= hashOfFiles(projectRoot, ["lib", "runner", "render", "deno.json", "deno.lock"]);
   return toolHash;
 }
 
@@ -78,24 +59,8 @@ function hashOfTool(): Promise<string> {
  * Files a worksheet's result depends on besides its own text: everything
  * under a `data/` folder beside it.
  */
-async function hashOfData(worksheetPath: string): Promise<string> {
-  const parts: string[] = [];
-  const walk = async (dir: string) => {
-    let entries: Deno.DirEntry[] = [];
-    try {
-      for await (const e of Deno.readDir(dir)) entries.push(e);
-    } catch {
-      return;
-    }
-    entries = entries.sort((a, b) => a.name.localeCompare(b.name));
-    for (const e of entries) {
-      const path = join(dir, e.name);
-      if (e.isDirectory) await walk(path);
-      else if (e.isFile) parts.push(`${e.name} ${await sha256Hex(await Deno.readFile(path))}`);
-    }
-  };
-  await walk(join(dirname(worksheetPath), "data"));
-  return sha256Hex(parts.join("\n"));
+function hashOfData(worksheetPath: string): Promise<string> {
+  return hashOfFiles(dirname(worksheetPath), ["data"]);
 }
 
 async function readManifest(dir: string): Promise<Manifest | undefined> {
@@ -166,8 +131,13 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
 
   // Load the plotting packages while the worksheet runs in its child process.
   void preloadRenderer();
+  const libraryModule = await libraryBundle();
   const execution: ExecutionResult = problem === undefined
-    ? await executeWorksheet(worksheet, params, options)
+    ? await executeWorksheet(
+      worksheet,
+      params,
+      libraryModule ? { ...options, libraryModule } : options,
+    )
     : { outcome: "rejected", blocks: [], problem, durationMs: 0 };
   const report = await writeReport(outDir, name, {
     worksheet,
