@@ -1,29 +1,29 @@
 // SHA-256 fingerprints of files and folders, for change detection.
+import { createHash } from "node:crypto";
 import { join, relative } from "node:path";
-import { sha256Hex } from "../render/write.ts";
 
 /**
- * One SHA-256 over the given files and folders (folders walked recursively,
- * in name order), each file entered as its path relative to `root` and its
- * own SHA-256. Missing entries count as empty.
+ * One SHA-256 (hex) over the given files and folders (folders walked
+ * recursively, in name order), each file entered as its path relative to
+ * `root` and the SHA-256 of its bytes. Missing entries count as empty.
  */
-export async function hashOfFiles(root: string, entries: string[]): Promise<string> {
-  const parts: string[] = [];
-  const visit = async (path: string) => {
+export function hashOfFiles(root: string, entries: string[]): string {
+  const all = createHash("sha256");
+  const visit = (path: string) => {
     let info: Deno.FileInfo;
     try {
-      info = await Deno.stat(path);
+      info = Deno.statSync(path);
     } catch {
       return;
     }
     if (info.isFile) {
-      parts.push(`${relative(root, path)} ${await sha256Hex(await Deno.readFile(path))}`);
+      const own = createHash("sha256").update(Deno.readFileSync(path)).digest("hex");
+      all.update(`${relative(root, path)} ${own}\n`);
     } else if (info.isDirectory) {
-      const names: string[] = [];
-      for await (const e of Deno.readDir(path)) names.push(e.name);
-      for (const name of names.sort()) await visit(join(path, name));
+      const names = [...Deno.readDirSync(path)].map((e) => e.name).sort();
+      for (const name of names) visit(join(path, name));
     }
   };
-  for (const entry of entries) await visit(join(root, entry));
-  return sha256Hex(parts.join("\n"));
+  for (const entry of entries) visit(join(root, entry));
+  return all.digest("hex");
 }

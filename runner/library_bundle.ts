@@ -16,7 +16,7 @@ let bundle: Promise<string | undefined> | undefined;
  */
 export function libraryBundle(): Promise<string | undefined> {
   bundle ??= (async () => {
-    const hash = (await hashOfFiles(projectRoot, ["lib", "deno.lock"])).slice(0, 16);
+    const hash = hashOfFiles(projectRoot, ["lib", "deno.lock"]).slice(0, 16);
     const dir = join(projectRoot, ".cache");
     const path = join(dir, `lib-${hash}.js`);
     try {

@@ -47,10 +47,10 @@ export function reportName(path: string): string {
   return basename(path).replace(/\.md$/i, "");
 }
 
-let toolHash: Promise<string> | undefined;
+let toolHash: string | undefined;
 
 /** SHA-256 over tapsheet's own code and lock file: a new version invalidates every report. */
-function hashOfTool(): Promise<string> {
+function hashOfTool(): string {
   toolHash ??= hashOfFiles(projectRoot, ["lib", "runner", "render", "deno.json", "deno.lock"]);
   return toolHash;
 }
@@ -59,7 +59,7 @@ function hashOfTool(): Promise<string> {
  * Files a worksheet's result depends on besides its own text: everything
  * under a `data/` folder beside it.
  */
-function hashOfData(worksheetPath: string): Promise<string> {
+function hashOfData(worksheetPath: string): string {
   return hashOfFiles(dirname(worksheetPath), ["data"]);
 }
 
@@ -109,7 +109,7 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
   }
 
   const inputs = await sha256Hex(
-    [text, JSON.stringify(params), date, await hashOfTool(), await hashOfData(path)].join("\n"),
+    [text, JSON.stringify(params), date, hashOfTool(), hashOfData(path)].join("\n"),
   );
   const existing = await readManifest(reportDir);
   if (!options.force && existing?.inputs === inputs) {
