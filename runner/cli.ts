@@ -103,7 +103,7 @@ async function commandRun(args: string[]): Promise<number> {
   const { positional, options } = parseArgs(
     args,
     ["--out", "--set", "--params", "--timeout", "--memory", "--date", "--json"],
-    ["--help", "--pdf", "--force"],
+    ["--help", "--pdf", "--force", "--exit-zero"],
   );
   if (options.has("--help")) {
     console.log(messages.cli.runUsage);
@@ -174,7 +174,9 @@ async function commandRun(args: string[]): Promise<number> {
     else await Deno.writeTextFile(json, results + "\n");
   }
   if (summaries.some((s) => s.verdict === "incomplete")) return exitCodes.failed;
-  if (summaries.some((s) => s.verdict === "not met")) return exitCodes.notMet;
+  if (summaries.some((s) => s.verdict === "not met") && !options.has("--exit-zero")) {
+    return exitCodes.notMet;
+  }
   return exitCodes.met;
 }
 

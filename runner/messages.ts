@@ -85,6 +85,8 @@ Options:
   --pdf                also write report.pdf with headless Chromium, when installed
                        (the PDF is not part of the report's fingerprint)
   --force              run even when nothing changed since the last report
+  --exit-zero          exit with 0 even when a requirement is not met (a failed
+                       worksheet still exits with 2); for rendering demos
   --help               show this help
 
 Exit codes:

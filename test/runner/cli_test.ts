@@ -226,3 +226,17 @@ Deno.test("cli: a parameters file overrides front matter, and --set overrides th
     await Deno.remove(out, { recursive: true });
   }
 });
+
+Deno.test("cli: --exit-zero keeps an unmet requirement from failing the command, not a failed worksheet", async () => {
+  const out = await Deno.makeTempDir();
+  try {
+    const r = await tapsheet(["run", demo, "--out", out, "--exit-zero"]);
+    assert.equal(r.code, 0, r.stderr);
+    assert.match(r.stdout, /not met/);
+    const hostile = fileURLToPath(new URL("./hostile/network.md", import.meta.url));
+    const failed = await tapsheet(["run", hostile, "--out", out, "--exit-zero"]);
+    assert.equal(failed.code, 2);
+  } finally {
+    await Deno.remove(out, { recursive: true });
+  }
+});
