@@ -240,3 +240,23 @@ Deno.test("cli: --exit-zero keeps an unmet requirement from failing the command,
     await Deno.remove(out, { recursive: true });
   }
 });
+
+Deno.test("cli: a syntax error is reported at file:line:column with the line shown", async () => {
+  const out = await Deno.makeTempDir();
+  try {
+    const sheet = join(out, "syntax.md");
+    await Deno.writeTextFile(
+      sheet,
+      "---\ntitle: Typo\n---\n\n```ts\nconst a = 1;\nconst b = (a +;\n```\n",
+    );
+    const r = await tapsheet(["run", sheet, "--out", join(out, "reports")]);
+    assert.equal(r.code, 2);
+    assert.match(r.stderr, /syntax\.md:7:15: SyntaxError: Expression expected/);
+    assert.match(r.stderr, /7 \| const b = \(a \+;/);
+    const checked = await tapsheet(["check", sheet]);
+    assert.equal(checked.code, 2);
+    assert.match(checked.stderr, /syntax\.md:7:15: Expression expected \(SyntaxError\)/);
+  } finally {
+    await Deno.remove(out, { recursive: true });
+  }
+});
