@@ -204,11 +204,17 @@ function dashBySeries(names: string[]): Spec {
 
 /** Shaded forbidden regions: above an upper bound, below a lower bound. */
 function maskLayer(mask: MaskSegment[], yDomain: [number, number], x: Spec): Spec {
+  // Above an upper bound the whole forbidden region is shaded (a stopband ceiling
+  // reads at a glance). Below a lower bound only a strip is: shading a passband
+  // floor down to the axis bottom would cover the transition band's picture.
+  const strip = 0.12 * (yDomain[1] - yDomain[0]);
   const values = mask.flatMap((m, i) => {
-    const edge = m.bound === "upper" ? yDomain[1] : yDomain[0];
+    const edgeAt = (level: number) =>
+      m.bound === "upper" ? yDomain[1] : Math.max(yDomain[0], level - strip);
+    const end = m.toLevel ?? m.level;
     return [
-      { x: m.from, y: m.level, edge, piece: i, label: m.label ?? "" },
-      { x: m.to, y: m.toLevel ?? m.level, edge, piece: i, label: m.label ?? "" },
+      { x: m.from, y: m.level, edge: edgeAt(m.level), piece: i, label: m.label ?? "" },
+      { x: m.to, y: end, edge: edgeAt(end), piece: i, label: m.label ?? "" },
     ];
   });
   return {

@@ -64,6 +64,16 @@ Deno.test("figures: the mask becomes a shaded region above an upper bound", () =
   assert.match(json, /"x":2000,"y":-60,"edge":5/);
   assert.match(json, /"x":4000,"y":-60,"edge":5/);
   assert.match(json, /"type":"area"/);
+  // A lower bound shades a strip below its line, 12 % of the axis range deep.
+  const floor = JSON.stringify(figureToVegaLite({
+    type: "figure",
+    kind: "magnitude",
+    title: "m",
+    series: [{ name: "h", x: [0, 1000], y: [0, -3] }],
+    mask: [{ from: 0, to: 1000, level: -1, bound: "lower" }],
+    yDomain: [-100, 0],
+  }));
+  assert.match(floor, /"x":0,"y":-1,"edge":-13/);
 });
 
 Deno.test("figures: a logarithmic axis leaves out f = 0 instead of failing; normalised axes divide by fs", () => {
