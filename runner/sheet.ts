@@ -11,6 +11,10 @@ import type { DesignWarning, MaskSegment } from "../lib/types.ts";
 import type { RequirementResult } from "../lib/verify/requirement.ts";
 import type { Exhibit, FigureKind, ParamValue } from "./types.ts";
 
+export type { DesignWarning, MaskSegment } from "../lib/types.ts";
+export type { RequirementResult } from "../lib/verify/requirement.ts";
+export type { Exhibit, FigureKind, ParamValue } from "./types.ts";
+
 /** A figure as a worksheet describes it. */
 export interface FigureSpec {
   /** What the figure shows; sets axis labels, marks and styling. */
@@ -23,6 +27,7 @@ export interface FigureSpec {
   mask?: MaskSegment[];
   /** Axis titles. @default chosen by kind, e.g. "Frequency (Hz)" */
   xLabel?: string;
+  /** Y axis title. @default chosen by kind, e.g. "Magnitude (dB)" */
   yLabel?: string;
   /** Frequency axis scale. @default "linear" */
   xScale?: "linear" | "log";
@@ -35,7 +40,8 @@ export interface FigureSpec {
   yDomain?: [number, number];
 }
 
-type Sink = (exhibit: Exhibit) => void;
+/** Where exhibits go: the harness sends each one to the parent process. */
+export type Sink = (exhibit: Exhibit) => void;
 
 let sink: Sink = () => {
   throw new Error("The sheet API is only available while the runner executes a worksheet");

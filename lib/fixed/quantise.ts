@@ -33,7 +33,9 @@ export type Rounding = "nearest" | "floor" | "convergent";
  */
 export function quantiseValue(
   value: number,
+  /** The Q format of the codes. */
   format: QFormat,
+  /** Rounding used. */
   rounding: Rounding = "nearest",
 ): { code: number; value: number; saturated: boolean } {
   requireFinite("Value", value);
@@ -54,7 +56,9 @@ export function quantiseValue(
 
 /** Values quantised to one Q format. */
 export interface QuantisedValues {
+  /** The Q format of the codes. */
   format: QFormat;
+  /** Rounding used. */
   rounding: Rounding;
   /** Integer codes, one per value. */
   codes: Int32Array;
@@ -84,7 +88,9 @@ export interface QuantisedValues {
  */
 export function quantiseValues(
   values: ArrayLike<number>,
+  /** The Q format of the codes. */
   format: QFormat,
+  /** Rounding used. */
   rounding: Rounding = "nearest",
 ): QuantisedValues {
   requireSamples("Values", values, 0);

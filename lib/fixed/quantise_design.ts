@@ -24,6 +24,7 @@ export interface QuantisedDesign {
   design: FilterDesign;
   /** Coefficient word length in bits. */
   wordLength: number;
+  /** Rounding used for every coefficient. */
   rounding: Rounding;
   /**
    * Formats: `[taps]` for FIR, one per section for sections,

@@ -29,7 +29,9 @@ export interface FixedRunResult {
   accumulatorOverflows: number;
   /** Times a data word (a section output or the filter output) saturated. */
   outputOverflows: number;
+  /** Q format of input, section and output words. */
   dataFormat: QFormat;
+  /** Accumulator width in bits. */
   accumulatorBits: number;
 }
 

@@ -16,9 +16,11 @@ export interface WordLengthSearchOptions extends QuantiseOptions, CheckOptions {
 
 /** One word length tried by the search. */
 export interface WordLengthTrial {
+  /** Coefficient word length tried, in bits. */
   wordLength: number;
   /** Requirements met / not met at this word length. */
   met: number;
+  /** Requirements not met at this word length. */
   failed: number;
   /** Names (and ids) of the requirements not met. */
   failedNames: string[];

@@ -10,17 +10,25 @@ export interface RequirementLabel {
 
 /** Peak-to-peak passband ripple, max − min of 20·log10|H| over [from, to] Hz, at most `atMostDb`. */
 export interface PassbandRippleRequirement extends RequirementLabel {
+  /** Which requirement this is. */
   kind: "passbandRipple";
+  /** Lower edge of the band in Hz, in [0, fs/2]. */
   from: number;
+  /** Upper edge of the band in Hz, in [from, fs/2]. */
   to: number;
+  /** Limit in dB the achieved value must not exceed. */
   atMostDb: number;
 }
 
 /** Largest deviation |20·log10|H| − gainDb| over [from, to] Hz, at most `atMostDb`. */
 export interface PassbandDeviationRequirement extends RequirementLabel {
+  /** Which requirement this is. */
   kind: "passbandDeviation";
+  /** Lower edge of the band in Hz, in [0, fs/2]. */
   from: number;
+  /** Upper edge of the band in Hz, in [from, fs/2]. */
   to: number;
+  /** Limit in dB the achieved value must not exceed. */
   atMostDb: number;
   /** Nominal passband gain in dB. @default 0 */
   gainDb?: number;
@@ -28,9 +36,13 @@ export interface PassbandDeviationRequirement extends RequirementLabel {
 
 /** Smallest attenuation referenceDb − 20·log10|H| over [from, to] Hz, at least `atLeastDb`. */
 export interface StopbandAttenuationRequirement extends RequirementLabel {
+  /** Which requirement this is. */
   kind: "stopbandAttenuation";
+  /** Lower edge of the band in Hz, in [0, fs/2]. */
   from: number;
+  /** Upper edge of the band in Hz, in [from, fs/2]. */
   to: number;
+  /** Limit in dB the achieved value must reach. */
   atLeastDb: number;
   /** Passband reference level in dB the attenuation is measured from. @default 0 */
   referenceDb?: number;
@@ -38,7 +50,9 @@ export interface StopbandAttenuationRequirement extends RequirementLabel {
 
 /** Largest gain max 20·log10|H| over [from, to] Hz (headroom), at most `atMostDb`. */
 export interface MaximumGainRequirement extends RequirementLabel {
+  /** Which requirement this is. */
   kind: "maximumGain";
+  /** Limit in dB the achieved value must not exceed. */
   atMostDb: number;
   /** Lower edge in Hz. @default 0 */
   from?: number;
@@ -48,10 +62,13 @@ export interface MaximumGainRequirement extends RequirementLabel {
 
 /** Gain at one frequency (DC, a band centre) within ±toleranceDb of gainDb. */
 export interface GainAtRequirement extends RequirementLabel {
+  /** Which requirement this is. */
   kind: "gainAt";
   /** Frequency in Hz, in [0, fs/2]; 0 for DC gain. */
   frequency: number;
+  /** Wanted gain in dB. */
   gainDb: number;
+  /** Allowed deviation from the wanted gain, in dB. */
   toleranceDb: number;
 }
 
@@ -66,17 +83,25 @@ export type BandEdgeRequirement =
 
 /** Largest group delay over [from, to] Hz, at most `atMostSamples`. */
 export interface GroupDelayMaximumRequirement extends RequirementLabel {
+  /** Which requirement this is. */
   kind: "groupDelayMaximum";
+  /** Lower edge of the band in Hz, in [0, fs/2]. */
   from: number;
+  /** Upper edge of the band in Hz, in [from, fs/2]. */
   to: number;
+  /** Limit in samples. */
   atMostSamples: number;
 }
 
 /** Group-delay variation max τ − min τ over [from, to] Hz, at most `atMostSamples`. */
 export interface GroupDelayFlatnessRequirement extends RequirementLabel {
+  /** Which requirement this is. */
   kind: "groupDelayFlatness";
+  /** Lower edge of the band in Hz, in [0, fs/2]. */
   from: number;
+  /** Upper edge of the band in Hz, in [from, fs/2]. */
   to: number;
+  /** Limit in samples. */
   atMostSamples: number;
 }
 
@@ -88,15 +113,21 @@ export interface GroupDelayFlatnessRequirement extends RequirementLabel {
  * as deviation.
  */
 export interface LinearPhaseRequirement extends RequirementLabel {
+  /** Which requirement this is. */
   kind: "linearPhase";
+  /** Lower edge of the band in Hz, in [0, fs/2]. */
   from: number;
+  /** Upper edge of the band in Hz, in [from, fs/2]. */
   to: number;
+  /** Limit in degrees. */
   atMostDegrees: number;
 }
 
 /** Stability margin 1 − max|pole|, at least `atLeast` (0 < atLeast ≤ 1 for a useful margin). */
 export interface StabilityMarginRequirement extends RequirementLabel {
+  /** Which requirement this is. */
   kind: "stabilityMargin";
+  /** Smallest allowed margin, 1 − largest pole radius. */
   atLeast: number;
 }
 
@@ -106,7 +137,9 @@ export interface StabilityMarginRequirement extends RequirementLabel {
  * `atMostSeconds`.
  */
 export interface SettlingTimeRequirement extends RequirementLabel {
+  /** Which requirement this is. */
   kind: "settlingTime";
+  /** Limit in seconds. */
   atMostSeconds: number;
   /** Settling band as a fraction of the final value, in (0, 1). @default 0.02 */
   tolerance?: number;
@@ -130,5 +163,6 @@ export type Requirement =
 export interface FilterSpec {
   /** Sample rate in Hz. */
   fs: number;
+  /** The requirements, checked and reported in this order. */
   requirements: Requirement[];
 }
