@@ -6,6 +6,8 @@ import {
 } from "../_validate.ts";
 import type { Complex, Section } from "../types.ts";
 import { polynomialRoots } from "../poly/roots.ts";
+import { responseAt } from "../response/frequency_response.ts";
+import { sectionsResponse } from "../iir/analysis.ts";
 
 /**
  * A filter to verify, in the form it will be implemented:
@@ -131,33 +133,14 @@ export function responseOf(
 ): { frequencies: Float64Array; re: Float64Array; im: Float64Array } {
   requireDesign(design);
   requireSampleRate(fs);
-  const parts = factors(design);
-  const n = frequencies.length;
-  const out = {
-    frequencies: Float64Array.from(frequencies),
-    re: new Float64Array(n),
-    im: new Float64Array(n),
-  };
-  for (let i = 0; i < n; i++) {
-    const f = frequencies[i] as number;
-    requireFrequency(`Frequency [${i}]`, f, fs);
-    const w = (2 * Math.PI * f) / fs;
-    let hr = 1;
-    let hi = 0;
-    for (const [b, a] of parts) {
-      const [br, bi] = polyAndRamp(b, w);
-      const [ar, ai] = a.length === 1 ? [a[0] as number, 0] : polyAndRamp(a, w);
-      const d = ar * ar + ai * ai;
-      const qr = (br * ar + bi * ai) / d;
-      const qi = (bi * ar - br * ai) / d;
-      const r = hr * qr - hi * qi;
-      hi = hr * qi + hi * qr;
-      hr = r;
-    }
-    out.re[i] = hr;
-    out.im[i] = hi;
+  switch (design.kind) {
+    case "fir":
+      return responseAt(design.taps, [1], frequencies, fs);
+    case "rational":
+      return responseAt(design.numerator, design.denominator, frequencies, fs);
+    case "sections":
+      return sectionsResponse(design.sections, frequencies, fs);
   }
-  return out;
 }
 
 /**
