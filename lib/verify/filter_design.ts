@@ -8,6 +8,8 @@ import type { Complex, Section } from "../types.ts";
 import { polynomialRoots } from "../poly/roots.ts";
 import { responseAt } from "../response/frequency_response.ts";
 import { sectionsResponse } from "../iir/analysis.ts";
+import { applyIir, applySections } from "../iir/filter.ts";
+import { applyFirDirect } from "../fir/apply.ts";
 
 /**
  * A filter to verify, in the form it will be implemented:
@@ -305,48 +307,13 @@ export function poleRadius(design: FilterDesign): number {
 export function applyDesign(design: FilterDesign, signal: ArrayLike<number>): Float64Array {
   requireDesign(design);
   requireSamples("Signal", signal, 0);
-  let x = Float64Array.from(signal);
   switch (design.kind) {
-    case "fir": {
-      const h = design.taps;
-      const y = new Float64Array(x.length);
-      for (let n = 0; n < x.length; n++) {
-        let acc = 0;
-        const kMax = Math.min(h.length - 1, n);
-        for (let k = 0; k <= kMax; k++) acc += (h[k] as number) * (x[n - k] as number);
-        y[n] = acc;
-      }
-      return y;
-    }
-    case "sections": {
-      for (const s of design.sections) {
-        const y = new Float64Array(x.length);
-        let s1 = 0;
-        let s2 = 0;
-        for (let n = 0; n < x.length; n++) {
-          const xn = x[n] as number;
-          const yn = s.b0 * xn + s1;
-          s1 = s.b1 * xn - s.a1 * yn + s2;
-          s2 = s.b2 * xn - s.a2 * yn;
-          y[n] = yn;
-        }
-        x = y;
-      }
-      return x;
-    }
-    case "rational": {
-      const b = design.numerator;
-      const a = design.denominator;
-      const a0 = a[0] as number;
-      const y = new Float64Array(x.length);
-      for (let n = 0; n < x.length; n++) {
-        let acc = 0;
-        for (let k = 0; k < b.length && k <= n; k++) acc += (b[k] as number) * (x[n - k] as number);
-        for (let k = 1; k < a.length && k <= n; k++) acc -= (a[k] as number) * (y[n - k] as number);
-        y[n] = acc / a0;
-      }
-      return y;
-    }
+    case "fir":
+      return applyFirDirect(design.taps, signal);
+    case "sections":
+      return applySections(design.sections, signal);
+    case "rational":
+      return applyIir(design.numerator, design.denominator, signal);
   }
 }
 
