@@ -2,26 +2,9 @@
 import assert from "node:assert/strict";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
+import { root, tapsheet } from "./_cli.ts";
 
-const root = fileURLToPath(new URL("../../", import.meta.url));
 const demo = join(root, "worksheets", "pump_monitor_antialias.md");
-
-async function tapsheet(args: string[], env: Record<string, string> = {}) {
-  const out = await new Deno.Command(Deno.execPath(), {
-    args: [
-      "run",
-      "-A",
-      `--config=${join(root, "deno.json")}`,
-      join(root, "runner", "cli.ts"),
-      ...args,
-    ],
-    env: { NO_COLOR: "1", ...env },
-    stdout: "piped",
-    stderr: "piped",
-  }).output();
-  const decode = (b: Uint8Array) => new TextDecoder().decode(b);
-  return { code: out.code, stdout: decode(out.stdout), stderr: decode(out.stderr) };
-}
 
 async function sha256(path: string): Promise<string> {
   const digest = await crypto.subtle.digest("SHA-256", await Deno.readFile(path));

@@ -2,21 +2,9 @@
 // the reports index, and atomic report writing.
 import assert from "node:assert/strict";
 import { join } from "node:path";
-import { fileURLToPath } from "node:url";
+import { cliArgs, tapsheet } from "./_cli.ts";
 
-const root = fileURLToPath(new URL("../../", import.meta.url));
-const cli = ["run", "-A", `--config=${join(root, "deno.json")}`, join(root, "runner", "cli.ts")];
-const decode = (b: Uint8Array) => new TextDecoder().decode(b);
-
-async function tapsheet(args: string[]) {
-  const out = await new Deno.Command(Deno.execPath(), {
-    args: [...cli, ...args],
-    env: { NO_COLOR: "1" },
-    stdout: "piped",
-    stderr: "piped",
-  }).output();
-  return { code: out.code, stdout: decode(out.stdout), stderr: decode(out.stderr) };
-}
+const cli = cliArgs;
 
 const sheet = (body: string, title = "Small sheet") =>
   `---\ntitle: ${title}\ndocument: T-9\nrevision: A\nparams:\n  gain: 2\n---\n\nProse.\n\n\`\`\`ts\n${body}\n\`\`\`\n`;

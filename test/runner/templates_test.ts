@@ -3,10 +3,9 @@
 // (invented scenarios); the numbers behind each check are tested in test/lib/.
 import assert from "node:assert/strict";
 import { join } from "node:path";
-import { fileURLToPath } from "node:url";
+import { cliArgs, root, tapsheet } from "./_cli.ts";
 import { runWorksheet } from "../../runner/run.ts";
 
-const root = fileURLToPath(new URL("../../", import.meta.url));
 const templates = join(root, "worksheets", "templates");
 const names: string[] = [];
 for await (const e of Deno.readDir(templates)) if (e.name.endsWith(".md")) names.push(e.name);
@@ -44,7 +43,7 @@ for (const name of names) {
 
 Deno.test("new: scaffolds a worksheet from a template and refuses to overwrite", async () => {
   const dir = await Deno.makeTempDir();
-  const cli = ["run", "-A", `--config=${join(root, "deno.json")}`, join(root, "runner", "cli.ts")];
+  const cli = cliArgs;
   const run = (args: string[]) =>
     new Deno.Command(Deno.execPath(), { args: [...cli, ...args], stdout: "piped", stderr: "piped" })
       .output();
@@ -71,21 +70,8 @@ Deno.test("new: scaffolds a worksheet from a template and refuses to overwrite",
 });
 
 Deno.test("every demo worksheet and template type-checks", async () => {
-  const out = await new Deno.Command(Deno.execPath(), {
-    args: [
-      "run",
-      "-A",
-      `--config=${join(root, "deno.json")}`,
-      join(root, "runner", "cli.ts"),
-      "check",
-      join(root, "worksheets"),
-      templates,
-    ],
-    env: { NO_COLOR: "1" },
-    stdout: "piped",
-    stderr: "piped",
-  }).output();
-  const text = new TextDecoder().decode(out.stdout) + new TextDecoder().decode(out.stderr);
+  const out = await tapsheet(["check", join(root, "worksheets"), templates]);
+  const text = out.stdout + out.stderr;
   assert.equal(out.code, 0, text);
   assert.ok((text.match(/^ok {2}/gm) ?? []).length >= 10, text);
 });
