@@ -15,6 +15,18 @@ export function findChromium(): string | undefined {
 
 type Json = Record<string, unknown>;
 
+/** How long any one step of talking to Chromium may take. */
+const stepTimeoutMs = 30_000;
+
+/** Settle with `promise`, or reject with `what` after `ms`; never waits longer. */
+function withDeadline<T>(promise: Promise<T>, ms: number, what: string): Promise<T> {
+  let id: ReturnType<typeof setTimeout> | undefined;
+  const late = new Promise<never>((_, reject) => {
+    id = setTimeout(() => reject(new Error(`${what} (no answer within ${ms / 1000} s)`)), ms);
+  });
+  return Promise.race([promise, late]).finally(() => clearTimeout(id));
+}
+
 /** A page in headless Chromium, driven over the DevTools protocol. */
 export interface BrowserPage {
   /** Send a protocol command to the page and wait for its result. */
@@ -63,11 +75,15 @@ export async function withPage<T>(
   try {
     const endpoint = await devToolsEndpoint(child.stderr);
     socket = new WebSocket(endpoint);
-    await new Promise((resolve, reject) => {
-      socket!.onopen = resolve;
-      socket!.onerror = () =>
-        reject(new Error("Could not connect to Chromium's DevTools endpoint"));
-    });
+    await withDeadline(
+      new Promise((resolve, reject) => {
+        socket!.onopen = resolve;
+        socket!.onerror = () =>
+          reject(new Error("Could not connect to Chromium's DevTools endpoint"));
+      }),
+      stepTimeoutMs,
+      "Chromium's DevTools endpoint did not open",
+    );
     const pending = new Map<number, { resolve: (v: Json) => void; reject: (e: Error) => void }>();
     const listeners: ((message: Json) => void)[] = [];
     socket.onmessage = (event) => {
@@ -83,10 +99,18 @@ export async function withPage<T>(
       }
     };
     let nextId = 1;
+    socket.onclose = () => {
+      for (const p of pending.values()) p.reject(new Error("Chromium closed the connection"));
+      pending.clear();
+    };
     const call = (method: string, params: Json = {}, sessionId?: string): Promise<Json> => {
       const id = nextId++;
       socket!.send(JSON.stringify({ id, method, params, ...(sessionId ? { sessionId } : {}) }));
-      return new Promise((resolve, reject) => pending.set(id, { resolve, reject }));
+      return withDeadline(
+        new Promise<Json>((resolve, reject) => pending.set(id, { resolve, reject })),
+        stepTimeoutMs,
+        `Chromium did not answer ${method}`,
+      ).finally(() => pending.delete(id));
     };
     const { targetId } = await call("Target.createTarget", { url: "about:blank" });
     const { sessionId } = await call("Target.attachToTarget", { targetId, flatten: true }) as {
@@ -115,12 +139,7 @@ export async function withPage<T>(
     await send("Runtime.enable");
     await send("Log.enable");
     await send("Page.navigate", { url });
-    await Promise.race([
-      loadedPromise,
-      new Promise((_, reject) =>
-        setTimeout(() => reject(new Error(`Timed out loading ${url}`)), 30_000)
-      ),
-    ]);
+    await withDeadline(loadedPromise, stepTimeoutMs, `Timed out loading ${url}`);
     const page: BrowserPage = {
       send,
       errors,
@@ -137,7 +156,7 @@ export async function withPage<T>(
     } catch {
       // already gone
     }
-    await child.status;
+    await withDeadline(child.status, stepTimeoutMs, "Chromium did not exit").catch(() => {});
     await Deno.remove(profile, { recursive: true }).catch(() => {});
   }
 }
@@ -145,9 +164,13 @@ export async function withPage<T>(
 async function devToolsEndpoint(stderr: ReadableStream<Uint8Array>): Promise<string> {
   const reader = stderr.pipeThrough(new TextDecoderStream()).getReader();
   let text = "";
-  const deadline = Date.now() + 30_000;
+  const deadline = Date.now() + stepTimeoutMs;
   while (Date.now() < deadline) {
-    const { value, done } = await reader.read();
+    // Every read races the deadline: a silent Chromium cannot hang the caller.
+    const next = await withDeadline(reader.read(), deadline - Date.now(), "no DevTools line")
+      .catch(() => undefined);
+    if (next === undefined) break;
+    const { value, done } = next;
     if (done) break;
     text += value;
     const m = /DevTools listening on (ws:\/\/\S+)/.exec(text);
@@ -163,6 +186,7 @@ async function devToolsEndpoint(stderr: ReadableStream<Uint8Array>): Promise<str
       return m[1]!;
     }
   }
+  reader.cancel().catch(() => {});
   throw new Error(`Chromium did not start its DevTools endpoint:\n${text.slice(0, 2000)}`);
 }
 

@@ -3,7 +3,7 @@ import { basename, dirname, join, resolve } from "node:path";
 import { pathToFileURL } from "node:url";
 import { parse as parseYaml } from "yaml";
 import { assembleWorksheet, blockMarker } from "./assemble.ts";
-import { projectRoot } from "./execute.ts";
+import { projectRoot, stopAllRuns } from "./execute.ts";
 import { messages } from "./messages.ts";
 import { ParamError } from "./params.ts";
 import { writeReportsIndex } from "../render/index_page.ts";
@@ -82,6 +82,15 @@ function positiveNumber(name: string, text: string | undefined): number | undefi
   return v;
 }
 
+/** A calendar date YYYY-MM-DD that exists (2026-02-30 does not). */
+function checkedDate(text: string): string {
+  const ok = /^\d{4}-\d{2}-\d{2}$/.test(text) &&
+    !Number.isNaN(Date.parse(`${text}T00:00:00Z`)) &&
+    new Date(`${text}T00:00:00Z`).toISOString().slice(0, 10) === text;
+  if (!ok) throw new UsageError(messages.cli.badDate(text));
+  return text;
+}
+
 function formatDuration(ms: number): string {
   return ms < 1000 ? `${Math.round(ms)} ms` : `${(ms / 1000).toFixed(1)} s`;
 }
@@ -110,9 +119,7 @@ async function commandRun(args: string[]): Promise<number> {
     return 0;
   }
   const date = options.get("--date")?.at(-1);
-  if (date !== undefined && !/^\d{4}-\d{2}-\d{2}$/.test(date)) {
-    throw new UsageError(messages.cli.badDate(date));
-  }
+  if (date !== undefined) checkedDate(date);
   const paramsFile = options.get("--params")?.at(-1);
   let paramsFromFile: Record<string, unknown> = {};
   if (paramsFile !== undefined) {
@@ -387,7 +394,15 @@ async function commandVerify(args: string[]): Promise<number> {
   }
 }
 
-/** Re-run a worksheet whenever it or its data change. Runs until interrupted. */
+/** Quiet time after the last change before a re-run starts, in ms. */
+const watchDebounceMs = 150;
+
+/**
+ * Re-run a worksheet whenever it or a file under its data/ folder changes.
+ * Runs until interrupted. The watcher is registered before the first run and
+ * before the "Watching" line, so no save is lost: changes during a run queue
+ * exactly one more run, and a burst of saves within the debounce time makes one.
+ */
 async function commandWatch(args: string[]): Promise<number> {
   const { positional, options } = parseArgs(args, ["--out", "--set", "--date"], ["--help"]);
   if (options.has("--help") || positional.length !== 1) {
@@ -401,14 +416,26 @@ async function commandWatch(args: string[]): Promise<number> {
     settings: options.get("--set") ?? [],
   };
   const date = options.get("--date")?.at(-1);
-  if (date !== undefined) runOptions.date = date;
-  const outDir = resolve(runOptions.outDir!);
+  if (date !== undefined) runOptions.date = checkedDate(date);
+  const worksheet = resolve(file);
+  const folder = dirname(worksheet);
+  const data = join(folder, "data");
+  const watcher = Deno.watchFs(folder, { recursive: true });
+
   const once = async () => {
+    const stamp = () => new Date().toISOString().slice(11, 19);
+    try {
+      await Deno.stat(worksheet);
+    } catch {
+      // Editors that save by rename delete the file for a moment; its return re-runs it.
+      console.log(`${stamp()}  ${messages.cli.watchedFileGone(file)}`);
+      return;
+    }
+    console.log(`${stamp()}  ${messages.cli.watchRunning(file)}`);
     const s = await runWorksheet(file, runOptions);
     await writeReportsIndex(runOptions.outDir!);
-    const stamp = new Date().toISOString().slice(11, 19);
     console.log(
-      `${stamp}  ${verdictLabel(s)}  ${file}  ${s.met}/${s.checked} requirements met  ${
+      `${stamp()}  ${verdictLabel(s)}  ${file}  ${s.met}/${s.checked} requirements met  ${
         s.skipped ? "unchanged" : formatDuration(s.durationMs)
       }`,
     );
@@ -416,17 +443,33 @@ async function commandWatch(args: string[]): Promise<number> {
       console.error(`  ${s.problem.path}:${s.problem.line}: ${s.problem.message}`);
     }
   };
-  await once();
-  console.log(messages.cli.watching(dirname(resolve(file))));
-  const watcher = Deno.watchFs(dirname(resolve(file)), { recursive: true });
+  let dirty = false;
+  let running: Promise<void> | undefined;
+  const start = () => {
+    if (running) {
+      dirty = true; // the run under way saw the old text: one more run follows it
+      return;
+    }
+    running = (async () => {
+      do {
+        dirty = false;
+        await once().catch((e) => console.error(`tapsheet: ${e.message}`));
+      } while (dirty);
+    })().finally(() => (running = undefined));
+  };
   let timer: ReturnType<typeof setTimeout> | undefined;
-  let running = Promise.resolve();
+  const relevant = (path: string) => {
+    const p = resolve(path);
+    return p === worksheet || p.startsWith(data + "/");
+  };
+
+  start();
+  await running;
+  console.log(messages.cli.watching(folder));
   for await (const event of watcher) {
-    if (event.paths.every((p) => resolve(p).startsWith(outDir) || /\/\.|~$/.test(p))) continue;
+    if (!event.paths.some(relevant)) continue;
     clearTimeout(timer);
-    timer = setTimeout(() => {
-      running = running.then(once).catch((e) => console.error(`tapsheet: ${e.message}`));
-    }, 150);
+    timer = setTimeout(start, watchDebounceMs);
   }
   return 0;
 }
@@ -465,4 +508,23 @@ export async function main(args: string[]): Promise<number> {
   }
 }
 
-if (import.meta.main) Deno.exit(await main(Deno.args));
+/**
+ * Ctrl-C, a terminal hang-up or a kill: stop the sandbox children and remove
+ * their temporary folders before exiting (128 + the signal's number). A report
+ * being written is staged in a hidden folder, which the next run clears.
+ */
+function stopOnSignals(): void {
+  const signals: [Deno.Signal, number][] = [["SIGINT", 130], ["SIGTERM", 143], ["SIGHUP", 129]];
+  for (const [signal, code] of signals) {
+    Deno.addSignalListener(signal, () => {
+      stopAllRuns();
+      console.error(messages.cli.interrupted(signal));
+      Deno.exit(code);
+    });
+  }
+}
+
+if (import.meta.main) {
+  stopOnSignals();
+  Deno.exit(await main(Deno.args));
+}

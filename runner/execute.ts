@@ -37,6 +37,29 @@ export const projectRoot: string = resolve(dirname(fileURLToPath(import.meta.url
 /** Memory the Deno runtime itself needs on top of the worksheet's heap, in MB. */
 const runtimeMarginMb = 256;
 
+/** Sandbox children under way, with their temporary folders (see {@link stopAllRuns}). */
+const activeRuns = new Map<Deno.ChildProcess, string>();
+
+/**
+ * Kill every sandbox child this process started and remove their temporary
+ * folders, synchronously: for a runner that is being interrupted.
+ */
+export function stopAllRuns(): void {
+  for (const [child, tempDir] of activeRuns) {
+    try {
+      child.kill("SIGKILL");
+    } catch {
+      // already gone
+    }
+    try {
+      Deno.removeSync(tempDir, { recursive: true });
+    } catch {
+      // already removed
+    }
+  }
+  activeRuns.clear();
+}
+
 /**
  * Execute a worksheet with the given parameters. Never throws for problems
  * in the worksheet: they come back as the result's outcome and problem.
@@ -113,6 +136,7 @@ export async function executeWorksheet(
       stdout: "piped",
       stderr: "piped",
     }).spawn();
+    activeRuns.set(child, tempDir);
 
     const nonce = `\u0001${crypto.randomUUID()}\u0002`;
     const input: HarnessInput = { moduleUrl, params, nonce };
@@ -196,6 +220,7 @@ export async function executeWorksheet(
     ]);
     clearTimeout(timer);
     clearInterval(watchdog);
+    activeRuns.delete(child);
 
     const durationMs = performance.now() - started;
     const locate = (text: string, blockIndex: number): SourceProblem =>

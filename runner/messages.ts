@@ -114,6 +114,10 @@ says whether the new report's fingerprint matches the existing one.
 Exit code 0 when it matches, 1 when it does not, 2 on error.`,
     noReport: (manifest: string) => `No report to verify: ${manifest} is missing or unreadable`,
     watching: (dir: string) => `Watching ${dir} for changes (Ctrl-C to stop)`,
+    watchRunning: (path: string) => `running ${path}…`,
+    watchedFileGone: (path: string) => `${path} is gone; waiting for it to come back`,
+    interrupted: (signal: string) =>
+      `tapsheet: stopped by ${signal}; no report was left half-written`,
     badParamsFile: (path: string) => `Parameters file ${path} must hold name: value pairs`,
     watchUsage: `tapsheet watch <worksheet.md> [--out DIR] [--set name=value]... [--date YYYY-MM-DD]
 
@@ -128,6 +132,6 @@ Stop with Ctrl-C.`,
     notFound: (path: string) => `No such worksheet or folder: ${path}`,
     badNumber: (name: string, text: string) =>
       `Option '${name}' needs a positive number, got '${text}'`,
-    badDate: (text: string) => `--date needs a date as YYYY-MM-DD, got '${text}'`,
+    badDate: (text: string) => `--date needs a real calendar date as YYYY-MM-DD, got '${text}'`,
   },
 } as const;

@@ -3,10 +3,9 @@
 // ignored and says so.
 import assert from "node:assert/strict";
 import { join } from "node:path";
-import { fileURLToPath, pathToFileURL } from "node:url";
+import { pathToFileURL } from "node:url";
 import { findChromium, fromBase64, withPage } from "../../runner/chromium.ts";
-
-const root = fileURLToPath(new URL("../../", import.meta.url));
+import { root, tapsheet } from "../runner/_cli.ts";
 const chromium = findChromium();
 if (chromium === undefined) console.warn("browser test ignored: Chromium is not installed");
 
@@ -66,22 +65,14 @@ Deno.test({
   async fn() {
     const out = await Deno.makeTempDir();
     try {
-      const cli = await new Deno.Command(Deno.execPath(), {
-        args: [
-          "run",
-          "-A",
-          `--config=${join(root, "deno.json")}`,
-          join(root, "runner", "cli.ts"),
-          "run",
-          join(root, "worksheets", "pump_monitor_antialias.md"),
-          "--out",
-          out,
-          "--pdf",
-        ],
-        stdout: "null",
-        stderr: "piped",
-      }).output();
-      assert.ok(cli.code === 0 || cli.code === 1, new TextDecoder().decode(cli.stderr));
+      const cli = await tapsheet([
+        "run",
+        join(root, "worksheets", "pump_monitor_antialias.md"),
+        "--out",
+        out,
+        "--pdf",
+      ]);
+      assert.ok(cli.code === 0 || cli.code === 1, cli.stderr);
       // run --pdf wrote the printed report beside the page.
       const printed = new TextDecoder("latin1").decode(
         await Deno.readFile(join(out, "pump_monitor_antialias", "report.pdf")),

@@ -3,6 +3,7 @@
 import assert from "node:assert/strict";
 import { join } from "node:path";
 import { cliArgs, tapsheet } from "./_cli.ts";
+import { runToEnd } from "../_process.ts";
 
 const cli = cliArgs;
 
@@ -110,41 +111,6 @@ Deno.test("run --json writes machine-readable results with durations", async () 
   }
 });
 
-Deno.test("watch: a saved change to the worksheet re-runs it", async () => {
-  const dir = await Deno.makeTempDir();
-  const file = join(dir, "w.md");
-  const out = join(dir, "reports");
-  await Deno.writeTextFile(file, sheet(passing));
-  const child = new Deno.Command(Deno.execPath(), {
-    args: [...cli, "watch", file, "--out", out],
-    env: { NO_COLOR: "1" },
-    stdout: "piped",
-    stderr: "null",
-  }).spawn();
-  const reader = child.stdout.pipeThrough(new TextDecoderStream()).getReader();
-  let seen = "";
-  const waitFor = async (pattern: RegExp) => {
-    const deadline = Date.now() + 30_000;
-    while (!pattern.test(seen)) {
-      if (Date.now() > deadline) throw new Error(`timed out waiting for ${pattern}; saw:\n${seen}`);
-      const { value, done } = await reader.read();
-      if (done) throw new Error(`watch ended early; saw:\n${seen}`);
-      seen += value;
-    }
-  };
-  try {
-    await waitFor(/Watching/);
-    assert.match(seen, / met .*1\/1 requirements met/);
-    await Deno.writeTextFile(file, sheet(passing.replace("atMost: 3", "atMost: 1")));
-    await waitFor(/not met .*0\/1 requirements met/);
-  } finally {
-    child.kill("SIGTERM");
-    await reader.cancel().catch(() => {});
-    await child.status;
-    await Deno.remove(dir, { recursive: true });
-  }
-});
-
 Deno.test("run: killing a run at any moment leaves the previous report whole", async () => {
   const dir = await Deno.makeTempDir();
   const file = join(dir, "k.md");
@@ -154,18 +120,12 @@ Deno.test("run: killing a run at any moment leaves the previous report whole", a
     await tapsheet(["run", file, "--out", out]);
     const original = await Deno.readTextFile(join(out, "k", "index.html"));
     for (const delayMs of [100, 300, 500, 700, 900, 1100]) {
-      const child = new Deno.Command(Deno.execPath(), {
-        args: [...cli, "run", file, "--out", out, "--force", "--set", "gain=2.5"],
-        stdout: "null",
-        stderr: "null",
-      }).spawn();
-      await new Promise((r) => setTimeout(r, delayMs));
-      try {
-        child.kill("SIGKILL");
-      } catch {
-        // it finished first: that is fine too
-      }
-      await child.status;
+      // Bounded: the run ends by itself or is killed at delayMs.
+      await runToEnd(
+        Deno.execPath(),
+        [...cli, "run", file, "--out", out, "--force", "--set", "gain=2.5"],
+        { timeoutMs: delayMs, killAtDeadline: true },
+      );
       const now = await Deno.readTextFile(join(out, "k", "index.html"));
       // Either the old report or a complete new one, never a mixture.
       assert.ok(now === original || /<\/html>\n$/.test(now), `after ${delayMs} ms`);

@@ -3,7 +3,7 @@
 // (invented scenarios); the numbers behind each check are tested in test/lib/.
 import assert from "node:assert/strict";
 import { join } from "node:path";
-import { cliArgs, root, tapsheet } from "./_cli.ts";
+import { root, tapsheet } from "./_cli.ts";
 import { runWorksheet } from "../../runner/run.ts";
 
 const templates = join(root, "worksheets", "templates");
@@ -43,25 +43,22 @@ for (const name of names) {
 
 Deno.test("new: scaffolds a worksheet from a template and refuses to overwrite", async () => {
   const dir = await Deno.makeTempDir();
-  const cli = cliArgs;
-  const run = (args: string[]) =>
-    new Deno.Command(Deno.execPath(), { args: [...cli, ...args], stdout: "piped", stderr: "piped" })
-      .output();
+  const run = (args: string[]) => tapsheet(args);
   try {
     const target = join(dir, "sub", "my_blocker.md");
     const made = await run(["new", "dc_blocker", target]);
-    assert.equal(made.code, 0, new TextDecoder().decode(made.stderr));
+    assert.equal(made.code, 0, made.stderr);
     assert.equal(
       await Deno.readTextFile(target),
       await Deno.readTextFile(join(templates, "dc_blocker.md")),
     );
     const again = await run(["new", "dc_blocker", target]);
     assert.equal(again.code, 2);
-    assert.match(new TextDecoder().decode(again.stderr), /exists already; pass --force/);
+    assert.match(again.stderr, /exists already; pass --force/);
     const unknown = await run(["new", "no_such_template", join(dir, "x.md")]);
     assert.equal(unknown.code, 2);
     assert.match(
-      new TextDecoder().decode(unknown.stderr),
+      unknown.stderr,
       /No template 'no_such_template'. Templates: .*dc_blocker/,
     );
   } finally {
