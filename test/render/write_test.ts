@@ -3,6 +3,7 @@ import { join } from "node:path";
 import { renderCount } from "../../render/svg.ts";
 import { type ReportContent, writeReport } from "../../render/write.ts";
 import type { FigureExhibit } from "../../runner/types.ts";
+import { runToEnd } from "../_process.ts";
 
 function content(figures: FigureExhibit[]): ReportContent {
   return {
@@ -73,13 +74,8 @@ Deno.test("write: exports land in exports/ and are listed with their SHA-256", a
     const csv = await Deno.readTextFile(join(out, "w", "exports", "taps.csv"));
     assert.equal(csv, "index,value\n0,1\n");
     // source: SHA-256 of the bytes "index,value\n0,1\n", computed with sha256sum (coreutils)
-    const expected = new TextDecoder().decode(
-      (await new Deno.Command("sha256sum", {
-        args: [join(out, "w", "exports", "taps.csv")],
-        stdout: "piped",
-      }).output())
-        .stdout,
-    ).split(" ")[0];
+    const expected = (await runToEnd("sha256sum", [join(out, "w", "exports", "taps.csv")]))
+      .stdout.split(" ")[0];
     const listed = report.files.find((f) => f.path === "exports/taps.csv");
     assert.equal(listed?.sha256, expected);
     const html = await Deno.readTextFile(join(out, "w", "index.html"));

@@ -7,12 +7,11 @@ import {
   quantiseValues,
 } from "../../../lib/mod.ts";
 import { referenceCase } from "../verify/_fixture.ts";
+import { runToEnd } from "../../_process.ts";
 
 async function hasGcc(): Promise<boolean> {
   try {
-    const r = await new Deno.Command("gcc", { args: ["--version"], stdout: "null", stderr: "null" })
-      .output();
-    return r.success;
+    return (await runToEnd("gcc", ["--version"], { timeoutMs: 30_000 })).code === 0;
   } catch {
     return false;
   }
@@ -20,10 +19,9 @@ async function hasGcc(): Promise<boolean> {
 const gcc = await hasGcc();
 
 async function run(cmd: string, args: string[], cwd: string): Promise<string> {
-  const r = await new Deno.Command(cmd, { args, cwd, stdout: "piped", stderr: "piped" }).output();
-  const err = new TextDecoder().decode(r.stderr);
-  if (!r.success) throw new Error(`${cmd} ${args.join(" ")} failed:\n${err}`);
-  return new TextDecoder().decode(r.stdout);
+  const r = await runToEnd(cmd, args, { cwd, timeoutMs: 60_000 });
+  if (r.code !== 0) throw new Error(`${cmd} ${args.join(" ")} failed:\n${r.stderr}`);
+  return r.stdout;
 }
 
 const strict = ["-std=c99", "-Wall", "-Wextra", "-Werror"];
