@@ -1,8 +1,13 @@
 // Write a report folder: figures (SVG + vega-lite spec), exports, index.html,
 // manifest.json. Built in a hidden folder and swapped in whole, so a run that
 // is killed at any moment leaves the previous report intact.
-import { join } from "node:path";
-import type { ExecutionResult, Exhibit, FigureExhibit } from "../runner/types.ts";
+import { join, resolve, sep } from "node:path";
+import {
+  type ExecutionResult,
+  type Exhibit,
+  type FigureExhibit,
+  isExportName,
+} from "../runner/types.ts";
 import { figureToVegaLite } from "./figures.ts";
 import {
   overallVerdict,
@@ -91,6 +96,14 @@ export async function writeReport(
     for (const block of content.execution.blocks) {
       for (const exhibit of block.exhibits) {
         if (exhibit.type !== "export") continue;
+        // Checked here too: the name came from the worksheet's side of the sandbox.
+        const folder = resolve(stage, "exports");
+        if (
+          !isExportName(exhibit.fileName) ||
+          !resolve(folder, exhibit.fileName).startsWith(folder + sep)
+        ) {
+          throw new Error(`Export '${exhibit.fileName}' is not a plain file name`);
+        }
         if (used.size === 0) await Deno.mkdir(join(stage, "exports"));
         let fileName = exhibit.fileName;
         for (let k = 2; used.has(fileName); k++) fileName = `${k}-${exhibit.fileName}`;

@@ -1,12 +1,12 @@
 // Stage 2: Worksheet → one TypeScript module whose line N is the worksheet's line N.
 import type { CodePart, SourceProblem, Worksheet } from "./types.ts";
 import { messages } from "./messages.ts";
+import { blockMarker } from "./harness_protocol.ts";
 
 /** Import names a worksheet may use; the runner's import map resolves them. */
 export const allowedImports: readonly string[] = ["tapsheet", "tapsheet/sheet"];
 
-/** The name of the function the harness defines; called on each fence line. */
-export const blockMarker = "__tapsheetBlock";
+export { blockMarker };
 
 /** The assembled module and any sandbox-rule violations found in the code. */
 export interface Assembly {
@@ -73,9 +73,11 @@ function checkImports(path: string, part: CodePart): SourceProblem[] {
   for (let m = dynamic.exec(code); m !== null; m = dynamic.exec(code)) {
     problems.push(locate(m.index + m[1]!.length, messages.assemble.dynamicImport));
   }
-  const forbidden = /(^|[^\w$.])(require|Worker|SharedWorker)\b/g;
+  // The runner's own names (the block marker) are reserved, also as a property.
+  const forbidden = /(^|[^\w$.])(require|Worker|SharedWorker)\b|(^|[^\w$])(__tapsheet\w*)/g;
   for (let m = forbidden.exec(code); m !== null; m = forbidden.exec(code)) {
-    problems.push(locate(m.index + m[1]!.length, messages.assemble.forbiddenName(m[2]!)));
+    const lead = m[1] ?? m[3] ?? "";
+    problems.push(locate(m.index + lead.length, messages.assemble.forbiddenName(m[2] ?? m[4]!)));
   }
   return problems;
 }

@@ -1,7 +1,13 @@
 // Stage 3: run the assembled module in a sandboxed child Deno process.
-import { basename, dirname, join, resolve } from "node:path";
+//
+// executeWorksheet is a sequence of named steps: assemble and check the code,
+// work out what the child may read, write the module, start the child,
+// supervise it (time, memory, output) while a ProtocolSession accepts its
+// messages, and conclude an ExecutionResult located in the worksheet.
+import { dirname, join, relative, resolve, sep } from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
 import { assembleWorksheet } from "./assemble.ts";
+import { checkedExhibit, ProtocolError } from "./exhibit_rules.ts";
 import { decodeNumbers } from "./harness_protocol.ts";
 import type { HarnessInput, HarnessMessage } from "./harness_protocol.ts";
 import { messages } from "./messages.ts";
@@ -37,6 +43,15 @@ export const projectRoot: string = resolve(dirname(fileURLToPath(import.meta.url
 /** Memory the Deno runtime itself needs on top of the worksheet's heap, in MB. */
 const runtimeMarginMb = 256;
 
+/** Prefix of every temporary run folder; the runner's process id follows. */
+const runFolderPrefix = "tapsheet-run-";
+
+interface Limits {
+  timeoutSeconds: number;
+  memoryMb: number;
+  outputMb: number;
+}
+
 /** Sandbox children under way, with their temporary folders (see {@link stopAllRuns}). */
 const activeRuns = new Map<Deno.ChildProcess, string>();
 
@@ -69,214 +84,410 @@ export async function executeWorksheet(
   params: Record<string, ParamValue>,
   options: ExecuteOptions = {},
 ): Promise<ExecutionResult> {
-  const timeoutSeconds = options.timeoutSeconds ?? 60;
-  const memoryMb = options.memoryMb ?? 1024;
-  const outputLimit = (options.outputMb ?? 16) * 1024 * 1024;
+  const started = performance.now();
+  const limits: Limits = {
+    timeoutSeconds: options.timeoutSeconds ?? 60,
+    memoryMb: options.memoryMb ?? 1024,
+    outputMb: options.outputMb ?? 16,
+  };
   const codeParts = worksheet.parts.filter((p): p is CodePart => p.kind === "code");
   const blocks: BlockResult[] = codeParts.map((p) => ({
     index: p.index,
     status: "not run",
     exhibits: [],
   }));
-  const started = performance.now();
+  const rejected = (problem: SourceProblem): ExecutionResult => ({
+    outcome: "rejected",
+    blocks,
+    problem,
+    durationMs: performance.now() - started,
+  });
 
   const assembly = assembleWorksheet(worksheet);
-  if (assembly.problems.length > 0) {
-    return {
-      outcome: "rejected",
-      blocks,
-      problem: assembly.problems[0]!,
-      durationMs: performance.now() - started,
-    };
-  }
+  if (assembly.problems.length > 0) return rejected(assembly.problems[0]!);
+  const access = await readAccess(worksheet);
+  if ("problem" in access) return rejected(access.problem);
 
-  const worksheetPath = resolve(worksheet.path);
-  const tempDir = await Deno.makeTempDir({ prefix: "tapsheet-" });
-  const modulePath = join(tempDir, basename(worksheetPath).replace(/\.md$/i, "") + ".ts");
-  const moduleUrl = pathToFileURL(modulePath).href;
+  sweepStaleRunFolders();
+  const tempDir = await Deno.makeTempDir({ prefix: `${runFolderPrefix}${Deno.pid}-` });
   try {
-    await Deno.writeTextFile(modulePath, assembly.module);
-    // The runner's own import names, and nothing else: no deno.json is read,
-    // so a config file in the worksheet's folder cannot remap them.
-    const importMap = join(tempDir, "imports.json");
-    await Deno.writeTextFile(
-      importMap,
-      JSON.stringify({
-        imports: {
-          "tapsheet":
-            pathToFileURL(options.libraryModule ?? join(projectRoot, "lib", "mod.ts")).href,
-          "tapsheet/sheet": pathToFileURL(join(projectRoot, "runner", "sheet.ts")).href,
-          ...packageImports(),
-        },
-      }),
-    );
-    const child = new Deno.Command(Deno.execPath(), {
-      args: [
-        "run",
-        "--no-prompt",
-        "--no-remote",
-        "--no-config",
-        `--import-map=${importMap}`,
-        `--lock=${join(projectRoot, "deno.lock")}`,
-        `--allow-read=${
-          [
-            join(projectRoot, "lib"),
-            dirname(worksheetPath),
-            tempDir,
-            ...(options.libraryModule ? [options.libraryModule] : []),
-          ].join(",")
-        }`,
-        `--v8-flags=--max-old-space-size=${memoryMb},--disallow-code-generation-from-strings`,
-        join(projectRoot, "runner", "harness.ts"),
-      ],
-      cwd: dirname(worksheetPath),
-      clearEnv: true,
-      env: childEnvironment(),
-      stdin: "piped",
-      stdout: "piped",
-      stderr: "piped",
-    }).spawn();
+    const moduleUrl = await writeModule(tempDir, worksheet, assembly.module, options);
+    const child = startChild(tempDir, access, limits, options.libraryModule);
     activeRuns.set(child, tempDir);
-
-    const nonce = `\u0001${crypto.randomUUID()}\u0002`;
-    const input: HarnessInput = { moduleUrl, params, nonce };
-    const writer = child.stdin.getWriter();
-    await writer.write(new TextEncoder().encode(JSON.stringify(input)));
-    await writer.close();
-
-    let stopped: RunOutcome | undefined;
-    const stop = (why: RunOutcome) => {
-      if (stopped !== undefined) return;
-      stopped = why;
-      try {
-        child.kill("SIGKILL");
-      } catch {
-        // already gone
-      }
-    };
-    const timer = setTimeout(() => stop("timeout"), timeoutSeconds * 1000);
-    let polling = false;
-    const watchdog = setInterval(async () => {
-      if (polling) return;
-      polling = true;
-      if ((await residentMb(child.pid)) > memoryMb + runtimeMarginMb) stop("memory limit");
-      polling = false;
-    }, 50);
-
-    let printed = 0;
-    let current = -1;
-    let error: Extract<HarnessMessage, { kind: "error" }> | undefined;
-    let done = false;
-    const blockAt = (index: number) => blocks[index];
-    const addExhibit = (index: number, exhibit: Exhibit) => {
-      const block = blockAt(index) ?? blockAt(0);
-      if (block) block.exhibits.push(exhibit);
-    };
-    const onLine = (line: string) => {
-      if (!line.startsWith(nonce)) {
-        if (line.trim() !== "") addExhibit(current, { type: "output", text: line });
-        return;
-      }
-      const message = JSON.parse(line.slice(nonce.length), decodeNumbers) as HarnessMessage;
-      switch (message.kind) {
-        case "block":
-          current = message.index;
-          if (blockAt(current)) blockAt(current)!.status = "ok";
-          break;
-        case "exhibit":
-          addExhibit(message.block, message.exhibit);
-          break;
-        case "error":
-          error = message;
-          break;
-        case "done":
-          done = true;
-          break;
-      }
-    };
-    const readLines = async (stream: ReadableStream<Uint8Array>, handle: (l: string) => void) => {
-      const decoder = new TextDecoder();
-      let pending = "";
-      for await (const chunk of stream) {
-        printed += chunk.length;
-        if (printed > outputLimit) {
-          stop("output limit");
-          continue;
-        }
-        pending += decoder.decode(chunk, { stream: true });
-        const lines = pending.split("\n");
-        pending = lines.pop()!;
-        for (const l of lines) handle(l);
-      }
-      if (pending !== "") handle(pending);
-    };
-    const stderrLines: string[] = [];
-    const [status] = await Promise.all([
-      child.status,
-      readLines(child.stdout, onLine),
-      readLines(child.stderr, (l) => {
-        if (stderrLines.length < 200) stderrLines.push(l);
-      }),
-    ]);
-    clearTimeout(timer);
-    clearInterval(watchdog);
-    activeRuns.delete(child);
-
-    const durationMs = performance.now() - started;
-    const locate = (text: string, blockIndex: number): SourceProblem =>
-      locateProblem(worksheet, codeParts, moduleUrl, text, blockIndex);
-    let outcome: RunOutcome;
-    let problem: SourceProblem | undefined;
-    if (stopped !== undefined) {
-      outcome = stopped;
-      const message = stopped === "timeout"
-        ? messages.execute.timeout(timeoutSeconds)
-        : stopped === "memory limit"
-        ? messages.execute.memory(memoryMb)
-        : messages.execute.output(options.outputMb ?? 16);
-      problem = { ...locate("", current), message };
-    } else if (error !== undefined) {
-      outcome = "error";
-      const where = locate(`${error.message}\n${error.stack}`, error.block);
-      const text = error.name === "NotCapable"
-        ? messages.execute.notCapable(error.message)
-        : errorSummary(error.name, error.message);
-      problem = { ...where, message: text };
-    } else if (
-      status.code === 133 || /heap out of memory|Fatal JavaScript/i.test(stderrLines.join("\n"))
-    ) {
-      outcome = "memory limit";
-      problem = { ...locate("", current), message: messages.execute.heap(memoryMb) };
-    } else if (!done) {
-      outcome = "error";
-      const detail = stderrLines.join("\n").replaceAll(moduleUrl, worksheet.path).trim();
-      problem = {
-        ...locate(detail, current),
-        message: detail
-          ? detail.split("\n").slice(0, 6).join("\n")
-          : messages.execute.crashed(status.code),
+    try {
+      const session = new ProtocolSession(blocks);
+      const input: HarnessInput = {
+        moduleUrl,
+        hostUrl: pathToFileURL(join(projectRoot, "runner", "worksheet_host.ts")).href,
+        params,
+        nonce: session.nonce,
+        timeoutSeconds: limits.timeoutSeconds,
       };
-    } else {
-      outcome = "completed";
+      const ending = await superviseChild(child, input, limits, session);
+      return conclude(worksheet, codeParts, moduleUrl, session, ending, limits, started);
+    } finally {
+      activeRuns.delete(child);
     }
-    if (problem !== undefined) {
-      const failing = codeParts.find((p) =>
-        p.startLine <= problem!.line && problem!.line <= p.endLine
-      ) ??
-        codeParts[Math.max(0, current)];
-      for (const b of blocks) {
-        if (failing && b.index === failing.index) b.status = "failed";
-        else if (failing && b.index > failing.index) {
-          b.status = "not run";
-        }
-      }
-    }
-    const result: ExecutionResult = { outcome, blocks, durationMs };
-    if (problem !== undefined) result.problem = problem;
-    return result;
   } finally {
     await Deno.remove(tempDir, { recursive: true }).catch(() => {});
   }
+}
+
+/** What the child may read besides the library: the worksheet's data/ folder, resolved. */
+interface ReadAccess {
+  /** The worksheet's folder, links resolved: the child's working folder. */
+  folder: string;
+  /** The real path of data/ beside the worksheet, when there is one. */
+  data?: string;
+}
+
+/**
+ * The folders a worksheet may read: its own data/ folder and nothing else of
+ * the disk. Links are resolved first, and a link under data/ that leads out
+ * of it (or nowhere) refuses the run: the sandbox checks paths as written, so
+ * a link would otherwise let the worksheet read what it points at.
+ */
+async function readAccess(worksheet: Worksheet): Promise<ReadAccess | { problem: SourceProblem }> {
+  const refuse = (message: string) => ({
+    problem: { path: worksheet.path, line: 1, message, excerpt: worksheet.source.split("\n")[0] },
+  });
+  const folder = await Deno.realPath(dirname(resolve(worksheet.path)));
+  const dataPath = join(folder, "data");
+  let data: string;
+  try {
+    data = await Deno.realPath(dataPath);
+  } catch {
+    return { folder }; // no data folder (or a broken link, which reads nothing)
+  }
+  if (!(await Deno.stat(data)).isDirectory) return { folder };
+  if (!isInside(data, folder)) {
+    return refuse(messages.execute.linkLeaves("data", data));
+  }
+  const pending = [data];
+  while (pending.length > 0) {
+    const dir = pending.pop()!;
+    for await (const entry of Deno.readDir(dir)) {
+      const path = join(dir, entry.name);
+      if (entry.isSymlink) {
+        const target = await Deno.realPath(path).catch(() => undefined);
+        if (target === undefined || !isInside(target, data)) {
+          return refuse(
+            messages.execute.linkLeaves(relative(folder, path), target ?? "a missing file"),
+          );
+        }
+      } else if (entry.isDirectory) {
+        pending.push(path);
+      }
+    }
+  }
+  return { folder, data };
+}
+
+function isInside(path: string, folder: string): boolean {
+  return path === folder || path.startsWith(folder.endsWith(sep) ? folder : folder + sep);
+}
+
+let swept = false;
+
+/**
+ * Remove run folders left by runners that were killed (SIGKILL cannot be
+ * caught): their names carry the runner's process id. Once per process.
+ */
+function sweepStaleRunFolders(): void {
+  if (swept) return;
+  swept = true;
+  const tmp = Deno.env.get("TMPDIR") ?? "/tmp";
+  try {
+    Deno.statSync("/proc/self");
+  } catch {
+    return; // no /proc: cannot tell a live runner from a dead one
+  }
+  try {
+    for (const entry of Deno.readDirSync(tmp)) {
+      const m = new RegExp(`^${runFolderPrefix}(\\d+)-`).exec(entry.name);
+      if (!m || Number(m[1]) === Deno.pid) continue;
+      try {
+        Deno.statSync(`/proc/${m[1]}`);
+      } catch {
+        Deno.removeSync(join(tmp, entry.name), { recursive: true });
+      }
+    }
+  } catch {
+    // an unreadable temporary folder: nothing to sweep
+  }
+}
+
+/** Write the module and the runner's own import map; returns the module's URL. */
+async function writeModule(
+  tempDir: string,
+  worksheet: Worksheet,
+  module: string,
+  options: ExecuteOptions,
+): Promise<string> {
+  const name = worksheet.path.split(/[\\/]/).at(-1)!.replace(/\.md$/i, "");
+  const modulePath = join(tempDir, `${name.replace(/[^A-Za-z0-9_.-]/g, "_")}.ts`);
+  await Deno.writeTextFile(modulePath, module);
+  // The runner's own import names, and nothing else: no deno.json is read,
+  // so a config file in the worksheet's folder cannot remap them.
+  await Deno.writeTextFile(
+    join(tempDir, "imports.json"),
+    JSON.stringify({
+      imports: {
+        "tapsheet": pathToFileURL(options.libraryModule ?? join(projectRoot, "lib", "mod.ts")).href,
+        "tapsheet/sheet": pathToFileURL(join(projectRoot, "runner", "sheet.ts")).href,
+        ...packageImports(),
+      },
+    }),
+  );
+  return pathToFileURL(modulePath).href;
+}
+
+/** Start the sandboxed child: read access as worked out, no other permission. */
+function startChild(
+  tempDir: string,
+  access: ReadAccess,
+  limits: Limits,
+  libraryModule: string | undefined,
+): Deno.ChildProcess {
+  const readable = [
+    join(projectRoot, "lib"),
+    // The worker's entry point and the sheet API it loads (tapsheet's own code).
+    join(projectRoot, "runner"),
+    tempDir,
+    ...(libraryModule ? [libraryModule] : []),
+    ...(access.data ? [access.data] : []),
+  ];
+  return new Deno.Command(Deno.execPath(), {
+    args: [
+      "run",
+      "--no-prompt",
+      "--no-remote",
+      "--no-config",
+      `--import-map=${join(tempDir, "imports.json")}`,
+      `--lock=${join(projectRoot, "deno.lock")}`,
+      `--allow-read=${readable.join(",")}`,
+      `--v8-flags=--max-old-space-size=${limits.memoryMb},--disallow-code-generation-from-strings`,
+      join(projectRoot, "runner", "harness.ts"),
+    ],
+    cwd: access.folder,
+    clearEnv: true,
+    env: childEnvironment(),
+    stdin: "piped",
+    stdout: "piped",
+    stderr: "piped",
+  }).spawn();
+}
+
+/**
+ * Accepts the child's messages in the only order a real run produces: block
+ * markers 0, 1, 2 … each once, exhibits for the block under way (rebuilt by
+ * the parent's own rules), then one error or, after the last block, done.
+ * Anything else (a forged, repeated or out-of-order message) is a violation
+ * and the run fails.
+ */
+class ProtocolSession {
+  readonly nonce = `\u0001${crypto.randomUUID()}\u0002`;
+  current = -1;
+  done = false;
+  error: Extract<HarnessMessage, { kind: "error" }> | undefined;
+  violation: string | undefined;
+
+  constructor(readonly blocks: BlockResult[]) {}
+
+  line(line: string): void {
+    if (!line.startsWith(this.nonce)) {
+      // Printed by the worksheet itself (not through the sheet API): shown as output.
+      if (line.trim() !== "") this.attach({ type: "output", text: line });
+      return;
+    }
+    if (this.violation !== undefined) return;
+    try {
+      this.accept(JSON.parse(line.slice(this.nonce.length), decodeNumbers));
+    } catch (error) {
+      this.violation = error instanceof Error ? error.message : String(error);
+    }
+  }
+
+  private attach(exhibit: Exhibit): void {
+    const block = this.blocks[Math.max(0, this.current)];
+    if (block) block.exhibits.push(exhibit);
+  }
+
+  private accept(message: HarnessMessage): void {
+    if (this.done || this.error) throw new ProtocolError("a message after the end of the run");
+    switch (message?.kind) {
+      case "block":
+        if (message.index !== this.current + 1 || message.index >= this.blocks.length) {
+          throw new ProtocolError(
+            `block ${message.index} reported after block ${this.current} (markers out of order)`,
+          );
+        }
+        this.current = message.index;
+        this.blocks[this.current]!.status = "ok";
+        return;
+      case "exhibit":
+        if (this.current < 0) throw new ProtocolError("an exhibit before the first block");
+        this.attach(checkedExhibit(message.exhibit));
+        return;
+      case "error":
+        this.error = {
+          kind: "error",
+          block: this.current,
+          name: String(message.name),
+          message: String(message.message),
+          stack: String(message.stack),
+        };
+        return;
+      case "done":
+        if (this.current !== this.blocks.length - 1) {
+          throw new ProtocolError(
+            `the run claimed to end after ${this.current + 1} of ${this.blocks.length} blocks`,
+          );
+        }
+        this.done = true;
+        return;
+      default:
+        throw new ProtocolError("a message of no known kind");
+    }
+  }
+}
+
+/** How the child ended, as seen by its supervisor. */
+interface Ending {
+  status: Deno.CommandStatus;
+  /** Set when the supervisor stopped the child. */
+  stopped?: RunOutcome;
+  stderr: string[];
+}
+
+/**
+ * Hand the child its input and watch it: wall-clock timeout, resident memory,
+ * output size. Standard input stays open until the child ends, so the child
+ * can tell when this process has gone.
+ */
+async function superviseChild(
+  child: Deno.ChildProcess,
+  input: HarnessInput,
+  limits: Limits,
+  session: ProtocolSession,
+): Promise<Ending> {
+  let stopped: RunOutcome | undefined;
+  const stop = (why: RunOutcome) => {
+    if (stopped !== undefined) return;
+    stopped = why;
+    try {
+      child.kill("SIGKILL");
+    } catch {
+      // already gone
+    }
+  };
+  const timer = setTimeout(() => stop("timeout"), limits.timeoutSeconds * 1000);
+  let polling = false;
+  const watchdog = setInterval(async () => {
+    if (polling) return;
+    polling = true;
+    if ((await residentMb(child.pid)) > limits.memoryMb + runtimeMarginMb) stop("memory limit");
+    polling = false;
+  }, 50);
+
+  const outputLimit = limits.outputMb * 1024 * 1024;
+  let printed = 0;
+  const readLines = async (stream: ReadableStream<Uint8Array>, handle: (l: string) => void) => {
+    const decoder = new TextDecoder();
+    let pending = "";
+    for await (const chunk of stream) {
+      printed += chunk.length;
+      if (printed > outputLimit) {
+        stop("output limit");
+        continue;
+      }
+      pending += decoder.decode(chunk, { stream: true });
+      const lines = pending.split("\n");
+      pending = lines.pop()!;
+      for (const l of lines) handle(l);
+    }
+    if (pending !== "") handle(pending);
+  };
+  const stderr: string[] = [];
+  const writer = child.stdin.getWriter();
+  const [status] = await Promise.all([
+    child.status,
+    readLines(child.stdout, (l) => session.line(l)),
+    readLines(child.stderr, (l) => {
+      if (stderr.length < 200) stderr.push(l);
+    }),
+    writer.write(new TextEncoder().encode(JSON.stringify(input) + "\n")).catch(() => {}),
+  ]);
+  clearTimeout(timer);
+  clearInterval(watchdog);
+  await writer.close().catch(() => {});
+  const ending: Ending = { status, stderr };
+  if (stopped !== undefined) ending.stopped = stopped;
+  return ending;
+}
+
+/** Turn how the child ended into the run's outcome, its problem, and block statuses. */
+function conclude(
+  worksheet: Worksheet,
+  codeParts: CodePart[],
+  moduleUrl: string,
+  session: ProtocolSession,
+  ending: Ending,
+  limits: Limits,
+  started: number,
+): ExecutionResult {
+  const { blocks, current, error } = session;
+  const locate = (text: string, blockIndex: number): SourceProblem =>
+    locateProblem(worksheet, codeParts, moduleUrl, text, blockIndex);
+  const stderr = ending.stderr.join("\n");
+  let outcome: RunOutcome;
+  let problem: SourceProblem | undefined;
+  if (ending.stopped !== undefined) {
+    outcome = ending.stopped;
+    const message = ending.stopped === "timeout"
+      ? messages.execute.timeout(limits.timeoutSeconds)
+      : ending.stopped === "memory limit"
+      ? messages.execute.memory(limits.memoryMb)
+      : messages.execute.output(limits.outputMb);
+    problem = { ...locate("", current), message };
+  } else if (session.violation !== undefined) {
+    outcome = "error";
+    problem = { ...locate("", current), message: messages.execute.protocol(session.violation) };
+  } else if (error !== undefined) {
+    outcome = "error";
+    const where = locate(`${error.message}\n${error.stack}`, error.block);
+    const text = error.name === "NotCapable"
+      ? messages.execute.notCapable(error.message)
+      : errorSummary(error.name, error.message);
+    problem = { ...where, message: text };
+  } else if (ending.status.code === 133 || /heap out of memory|Fatal JavaScript/i.test(stderr)) {
+    outcome = "memory limit";
+    problem = { ...locate("", current), message: messages.execute.heap(limits.memoryMb) };
+  } else if (!session.done) {
+    outcome = "error";
+    const detail = stderr.replaceAll(moduleUrl, worksheet.path).trim();
+    problem = {
+      ...locate(detail, current),
+      message: detail
+        ? detail.split("\n").slice(0, 6).join("\n")
+        : messages.execute.crashed(ending.status.code),
+    };
+  } else {
+    outcome = "completed";
+  }
+  if (problem !== undefined) {
+    const failing = codeParts.find((p) =>
+      p.startLine <= problem.line && problem.line <= p.endLine
+    ) ??
+      codeParts[Math.max(0, current)];
+    for (const b of blocks) {
+      if (failing && b.index === failing.index) b.status = "failed";
+      else if (failing && b.index > failing.index) b.status = "not run";
+    }
+  }
+  const result: ExecutionResult = { outcome, blocks, durationMs: performance.now() - started };
+  if (problem !== undefined) result.problem = problem;
+  return result;
 }
 
 /**

@@ -1,81 +1,80 @@
-// The child process's entry point: connects the sheet API, imports the
-// assembled worksheet module, and streams exhibits to the parent as lines of
-// JSON on standard output. Runs inside the sandbox (see execute.ts).
-import { connectSheet } from "./sheet.ts";
-import { type HarnessInput, type HarnessMessage, nonFiniteMark } from "./harness_protocol.ts";
-import { blockMarker } from "./assemble.ts";
+// The sandbox child's main thread. It reads one line of input from the
+// parent, starts the worksheet in a worker (a separate realm, see
+// worksheet_host.ts), and relays the worker's messages to the parent as lines
+// of JSON on standard output, each prefixed with the parent's nonce, which
+// the worksheet never sees. It also ends the process when the parent goes
+// away (standard input closes) or its own time is up, so a runaway worksheet
+// cannot outlive the runner. No worksheet code ever runs on this thread.
+import {
+  encodeNumbers,
+  type HarnessInput,
+  type HarnessMessage,
+  type HostStart,
+} from "./harness_protocol.ts";
+
+/** Exit codes of the child itself (the parent reads them only when no message explains the end). */
+const exitCodes = { done: 0, failed: 1, parentGone: 125, timeUp: 124 } as const;
 
 const encoder = new TextEncoder();
-const stringify = JSON.stringify;
-const writeSync = Deno.stdout.writeSync.bind(Deno.stdout);
-const exit = Deno.exit;
+const stdin = Deno.stdin.readable.getReader();
 
-const input = JSON.parse(await new Response(Deno.stdin.readable).text()) as HarnessInput;
-let current = -1;
-
-/** JSON has no Infinity or NaN; carry them as marked strings (see decodeNumbers). */
-const keepNonFinite = (_key: string, value: unknown) =>
-  typeof value === "number" && !Number.isFinite(value) ? `${nonFiniteMark}${value}` : value;
-
-function send(message: HarnessMessage): void {
-  const bytes = encoder.encode(`${input.nonce}${stringify(message, keepNonFinite)}\n`);
-  let written = 0;
-  while (written < bytes.length) written += writeSync(bytes.subarray(written));
+/** The first line on standard input; whatever follows is only watched for its end. */
+async function readInput(): Promise<HarnessInput> {
+  const decoder = new TextDecoder();
+  let text = "";
+  while (!text.includes("\n")) {
+    const { value, done } = await stdin.read();
+    if (done) Deno.exit(exitCodes.parentGone);
+    text += decoder.decode(value, { stream: true });
+  }
+  return JSON.parse(text.slice(0, text.indexOf("\n"))) as HarnessInput;
 }
 
-function fail(error: unknown): void {
-  const e = error instanceof Error ? error : new Error(String(error));
+const input = await readInput();
+
+// The parent holds standard input open for the whole run: its end means the
+// parent has gone (killed, even with SIGKILL), so this process goes too.
+(async () => {
+  try {
+    while (!(await stdin.read()).done) { /* nothing else is sent */ }
+  } catch {
+    // closed
+  }
+  Deno.exit(exitCodes.parentGone);
+})();
+// Backstop behind the parent's own timeout.
+setTimeout(() => Deno.exit(exitCodes.timeUp), (input.timeoutSeconds + 5) * 1000);
+
+function send(message: HarnessMessage): void {
+  // A leading newline ends any partial line the worksheet printed itself.
+  const bytes = encoder.encode(`\n${input.nonce}${JSON.stringify(message, encodeNumbers)}\n`);
+  let written = 0;
+  while (written < bytes.length) written += Deno.stdout.writeSync(bytes.subarray(written));
+}
+
+let current = -1;
+const worker = new Worker(input.hostUrl, { type: "module", name: "worksheet" });
+const { port1, port2 } = new MessageChannel();
+port1.onmessage = (event: MessageEvent<HarnessMessage>) => {
+  const message = event.data;
+  if (message.kind === "block") current = message.index;
+  send(message);
+  if (message.kind === "done") Deno.exit(exitCodes.done);
+  if (message.kind === "error") Deno.exit(exitCodes.failed);
+};
+// Messages on the worker's own channel come from worksheet code (self.postMessage): ignored.
+worker.onmessage = () => {};
+worker.onerror = (event) => {
+  // An error the worker's own handlers did not catch.
+  event.preventDefault();
   send({
     kind: "error",
     block: current,
-    name: e.name,
-    message: e.message,
-    stack: String(e.stack ?? ""),
+    name: "Error",
+    message: event.message,
+    stack: `${event.filename}:${event.lineno}:${event.colno}`,
   });
-}
-
-connectSheet((exhibit) => send({ kind: "exhibit", block: current, exhibit }), input.params);
-
-const format = (args: unknown[]) =>
-  args.map((a) => (typeof a === "string" ? a : Deno.inspect(a, { depth: 4 }))).join(" ");
-for (const method of ["log", "info", "warn", "error", "debug"] as const) {
-  console[method] = (...args: unknown[]) =>
-    send({ kind: "exhibit", block: current, exhibit: { type: "output", text: format(args) } });
-}
-
-Object.defineProperty(globalThis, blockMarker, {
-  value: (index: number) => {
-    current = index;
-    send({ kind: "block", index });
-  },
-  writable: false,
-  configurable: false,
-});
-// Workers could load modules from anywhere; worksheets have no use for them.
-for (const name of ["Worker", "SharedWorker"]) {
-  Object.defineProperty(globalThis, name, {
-    value: undefined,
-    writable: false,
-    configurable: false,
-  });
-}
-
-globalThis.addEventListener("error", (event) => {
-  event.preventDefault();
-  fail(event.error ?? event.message);
-  exit(1);
-});
-globalThis.addEventListener("unhandledrejection", (event) => {
-  event.preventDefault();
-  fail(event.reason);
-  exit(1);
-});
-
-try {
-  await import(input.moduleUrl);
-  send({ kind: "done" });
-  exit(0);
-} catch (error) {
-  fail(error);
-  exit(1);
-}
+  Deno.exit(exitCodes.failed);
+};
+const start: HostStart = { port: port2, moduleUrl: input.moduleUrl, params: input.params };
+worker.postMessage(start, [port2]);

@@ -1,8 +1,19 @@
-// What the parent and the child say to each other (see harness.ts, execute.ts).
-// Kept apart from harness.ts, which runs as soon as it is imported.
+// What the parent, the sandbox child and the worksheet's worker say to each
+// other (see execute.ts, harness.ts, worksheet_host.ts). Kept apart from
+// those files, which run as soon as they are imported.
+//
+//   parent ──stdin: one line of HarnessInput, then held open──▶ child main thread
+//   child main thread ──private MessagePort: HostStart──▶ worker (worksheet runs here)
+//   worker ──that port: HarnessMessage──▶ child main thread
+//   child main thread ──stdout: "\n" + nonce + JSON line──▶ parent
+//
+// The worksheet runs in the worker, a separate JavaScript realm: it never sees
+// the nonce or the child's standard input, and the port it cannot reach is the
+// only way into the main thread. Whatever the worksheet prints itself arrives
+// without the nonce and is shown as output, never taken as a message.
 import type { Exhibit, ParamValue } from "./types.ts";
 
-/** A line the child sends: a block started, an exhibit, an error, or the end. */
+/** A message about the run: a block started, an exhibit, an error, or the end. */
 export type HarnessMessage =
   | { kind: "block"; index: number }
   | { kind: "exhibit"; block: number; exhibit: Exhibit }
@@ -19,10 +30,29 @@ export function decodeNumbers(_key: string, value: unknown): unknown {
     : value;
 }
 
-/** What the parent writes to the child's standard input. */
+/** JSON.stringify replacer that marks non-finite numbers (JSON has none). */
+export function encodeNumbers(_key: string, value: unknown): unknown {
+  return typeof value === "number" && !Number.isFinite(value) ? `${nonFiniteMark}${value}` : value;
+}
+
+/** What the parent writes, as one line, to the child's standard input. */
 export interface HarnessInput {
   moduleUrl: string;
+  /** URL of the worker's entry point, runner/worksheet_host.ts. */
+  hostUrl: string;
   params: Record<string, ParamValue>;
   /** Prefix of every protocol line, so stray output cannot pose as one. */
   nonce: string;
+  /** The child's own backstop: it ends itself this long after starting. */
+  timeoutSeconds: number;
 }
+
+/** What the child's main thread sends the worker, with the port to answer on. */
+export interface HostStart {
+  port: MessagePort;
+  moduleUrl: string;
+  params: Record<string, ParamValue>;
+}
+
+/** The name of the function the worker defines; called on each fence line. */
+export const blockMarker = "__tapsheetBlock";

@@ -51,8 +51,28 @@ export const messages = {
       `The worksheet ran out of its ${mb} MB JavaScript heap and was stopped (raise it with --memory)`,
     output: (mb: number) => `The worksheet printed more than ${mb} MB and was stopped`,
     crashed: (code: number) => `The worksheet process ended unexpectedly (exit code ${code})`,
-    notCapable: (detail: string) =>
-      `Blocked by the sandbox: ${detail}. Worksheets cannot use the network, write files, run programs, read environment variables, or read outside the library and their own folder`,
+    notCapable: (detail: string) => {
+      // Deno says: Requires read access to "/etc/hostname", run again with the --allow-read flag
+      const m = /Requires (\w+) access to "?([^",]*)"?/.exec(detail);
+      const what: Record<string, string> = {
+        read: "read",
+        write: "write",
+        net: "use the network to reach",
+        env: "read the environment variable",
+        run: "run the program",
+        ffi: "load the native library (ffi)",
+        sys: "read the system information",
+        import: "import",
+      };
+      const tried = m
+        ? `the worksheet tried to ${what[m[1]!] ?? `use ${m[1]} access to`} ${m[2]}`
+        : detail.split(", run again")[0];
+      return `Blocked by the sandbox: ${tried}. Worksheets cannot use the network, write files, run programs, read environment variables, or read anything but the library and the data/ folder beside them`;
+    },
+    linkLeaves: (link: string, target: string) =>
+      `${link} is a link to ${target}, outside the worksheet's data/ folder: the sandbox does not follow links out of it. Copy the file into data/ instead`,
+    protocol: (detail: string) =>
+      `The worksheet's run broke the sandbox protocol (${detail}), so none of its results can be trusted`,
     notRun: "Not run: an earlier block failed",
     noWatchdog:
       "tapsheet: cannot read the worksheet process's memory use (no /proc access and no 'ps'); only the JavaScript heap cap applies",

@@ -69,17 +69,32 @@ export interface FigureSeries {
 }
 
 /** The kinds of figure the renderer knows how to draw. */
-export type FigureKind =
-  | "magnitude"
-  | "passband"
-  | "phase"
-  | "groupDelay"
-  | "impulse"
-  | "step"
-  | "poleZero"
-  | "spectrum"
-  | "quantised"
-  | "line";
+export const figureKinds = [
+  "magnitude",
+  "passband",
+  "phase",
+  "groupDelay",
+  "impulse",
+  "step",
+  "poleZero",
+  "spectrum",
+  "quantised",
+  "line",
+] as const;
+
+/** One of {@link figureKinds}. */
+export type FigureKind = (typeof figureKinds)[number];
+
+/**
+ * A file name a worksheet may export: a plain name of letters, digits, '.',
+ * '_' and '-' (no folders, no "..", at most 100 characters).
+ */
+export const exportNamePattern: RegExp = /^[A-Za-z0-9][A-Za-z0-9._-]{0,99}$/;
+
+/** True when `name` is a plain export file name (see {@link exportNamePattern}). */
+export function isExportName(name: unknown): name is string {
+  return typeof name === "string" && exportNamePattern.test(name) && !name.includes("..");
+}
 
 /** A figure as the worksheet describes it (data only; the renderer styles it). */
 export interface FigureExhibit {

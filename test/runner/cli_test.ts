@@ -146,7 +146,10 @@ const usage: [string, string[], number, RegExp][] = [
     2,
     /'fs' must be between 1000 Hz and 192000 Hz, got 10 Hz/,
   ],
-  ["bad date", ["run", demo, "--date", "yesterday"], 2, /--date needs a date/],
+  ["bad date", ["run", demo, "--date", "yesterday"], 2, /--date needs a real calendar date/],
+  // source: ISO 8601 calendar dates; month 13 and 30 February do not exist
+  ["impossible date", ["run", demo, "--date", "2026-13-45"], 2, /got '2026-13-45'/],
+  ["30 February", ["run", demo, "--date", "2026-02-30"], 2, /got '2026-02-30'/],
 ];
 for (const [what, args, code, message] of usage) {
   Deno.test(`cli: ${what} → exit ${code} with a clear message`, async () => {

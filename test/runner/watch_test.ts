@@ -126,19 +126,20 @@ Deno.test("watch: Ctrl-C during a run leaves no sandbox child and no temporary f
   const w = tapsheetWatched(["watch", file, "--out", join(dir, "reports")]);
   try {
     await w.waitFor(/running .*…/);
-    // Wait for the sandbox child (it reads the worksheet's folder) to be up.
+    // Wait for the sandbox child (its temporary folder carries the runner's pid) to be up.
+    const mark = `tapsheet-run-${w.child.pid}-`;
     let children: string[] = [];
     const deadline = Date.now() + 30_000;
     while (children.length === 0 && Date.now() < deadline) {
-      children = (await processesMentioning(dir)).filter((l) => /harness/.test(l));
+      children = (await processesMentioning(mark)).filter((l) => /harness/.test(l));
       if (children.length === 0) await new Promise((r) => setTimeout(r, 100));
     }
     assert.equal(children.length, 1, "one sandbox child is running");
-    const temp = /--allow-read=\S*?(\/[^,\s]*tapsheet-[^,\s]+)/.exec(children[0]!)?.[1];
+    const temp = /--allow-read=\S*?(\/[^,\s]*tapsheet-run-[^,\s]+)/.exec(children[0]!)?.[1];
     assert.ok(temp, children[0]);
     const status = await w.stop("SIGINT");
     assert.equal(status.code, 130);
-    assert.deepEqual((await processesMentioning(dir)).filter((l) => /harness/.test(l)), []);
+    assert.deepEqual((await processesMentioning(mark)).filter((l) => /harness/.test(l)), []);
     await assert.rejects(Deno.stat(temp), Deno.errors.NotFound);
   } finally {
     await w.stop("SIGKILL").catch(() => {});
