@@ -1,6 +1,6 @@
 // Figure exhibits → vega-lite specifications in tapsheet's theme.
 import type { MaskSegment } from "../lib/types.ts";
-import type { FigureExhibit, FigureKind } from "../runner/types.ts";
+import type { FigureExhibit, FigureKind } from "../record/types.ts";
 import { figureSize, fontStack, palette } from "./theme.ts";
 
 type Spec = Record<string, unknown>;

@@ -2,7 +2,7 @@
 import { join } from "node:path";
 import { escapeHtml as esc } from "./html.ts";
 import { reportCss } from "./report_css.ts";
-import type { Manifest } from "./write.ts";
+import { type Manifest, readManifest } from "../record/manifest.ts";
 
 const verdictText: Record<string, string> = {
   "met": "Met",
@@ -58,11 +58,8 @@ export async function writeReportsIndex(outDir: string): Promise<void> {
   const manifests: Manifest[] = [];
   for await (const e of Deno.readDir(outDir)) {
     if (!e.isDirectory || e.name.startsWith(".")) continue;
-    try {
-      manifests.push(JSON.parse(await Deno.readTextFile(join(outDir, e.name, "manifest.json"))));
-    } catch {
-      // not a report folder
-    }
+    const manifest = await readManifest(join(outDir, e.name));
+    if (manifest) manifests.push(manifest); // else not a report folder
   }
   manifests.sort((a, b) => a.name.localeCompare(b.name));
   const temp = join(outDir, `.index.html.${crypto.randomUUID().slice(0, 8)}`);

@@ -8,33 +8,14 @@ import type {
   ExecutionResult,
   Exhibit,
   ParamValue,
+  Provenance,
+  Verdict,
   Worksheet,
-} from "../runner/types.ts";
+  WrittenFile,
+} from "../record/types.ts";
+import { overallVerdict, requirementResults } from "../record/verdict.ts";
 import { escapeHtml as esc, proseToHtml } from "./html.ts";
 import { reportCss } from "./report_css.ts";
-
-/** The overall verdict of a run. */
-export type Verdict = "met" | "not met" | "incomplete" | "no requirements";
-
-/** A file written beside the report. */
-export interface WrittenFile {
-  /** Path relative to the report folder, e.g. "exports/lowpass.h". */
-  path: string;
-  sha256: string;
-  description?: string;
-}
-
-/** Facts that make the run reproducible. */
-export interface Provenance {
-  worksheetSha256: string;
-  /** Path of the worksheet as given on the command line. */
-  worksheetPath: string;
-  tapsheetVersion: string;
-  denoVersion: string;
-  packages: { name: string; version: string }[];
-  /** Run date, ISO 8601 (pinned by SOURCE_DATE_EPOCH or --date for reproducible reports). */
-  date: string;
-}
 
 /** Everything the report shows. */
 export interface ReportInput {
@@ -47,21 +28,6 @@ export interface ReportInput {
   figures: Map<Exhibit, WrittenFile>;
   exports: WrittenFile[];
   provenance: Provenance;
-}
-
-/** All requirement results of a run, in the order they were checked. */
-export function requirementResults(execution: ExecutionResult): RequirementResult[] {
-  return execution.blocks.flatMap((b) =>
-    b.exhibits.filter((e): e is CheckExhibit => e.type === "check").map((e) => e.result)
-  );
-}
-
-/** Overall verdict: incomplete unless every block ran, then met only if every check is met. */
-export function overallVerdict(execution: ExecutionResult): Verdict {
-  if (execution.outcome !== "completed") return "incomplete";
-  const results = requirementResults(execution);
-  if (results.length === 0) return "no requirements";
-  return results.every((r) => r.met) ? "met" : "not met";
 }
 
 const verdictText: Record<Verdict, string> = {

@@ -7,25 +7,20 @@ import {
   type Exhibit,
   type FigureExhibit,
   isExportName,
-} from "../runner/types.ts";
+} from "../record/types.ts";
 import { figureToVegaLite } from "./figures.ts";
 import {
-  overallVerdict,
-  type Provenance,
-  reportHtml,
-  type ReportInput,
-  requirementResults,
-  type Verdict,
-  type WrittenFile,
-} from "./report.ts";
+  fingerprintOf,
+  type Manifest,
+  manifestFile,
+  manifestText,
+  readManifest,
+  sha256Hex,
+} from "../record/manifest.ts";
+import type { Provenance, Verdict, WrittenFile } from "../record/types.ts";
+import { overallVerdict, requirementResults } from "../record/verdict.ts";
+import { reportHtml, type ReportInput } from "./report.ts";
 import { vegaLiteToSvg } from "./svg.ts";
-
-/** SHA-256 of text or bytes, as lowercase hex. */
-export async function sha256Hex(data: string | Uint8Array): Promise<string> {
-  const bytes = typeof data === "string" ? new TextEncoder().encode(data) : data;
-  const digest = await crypto.subtle.digest("SHA-256", bytes as Uint8Array<ArrayBuffer>);
-  return Array.from(new Uint8Array(digest), (b) => b.toString(16).padStart(2, "0")).join("");
-}
 
 /** A short file-name stem from a title: lowercase letters, digits and dashes. */
 export function slug(title: string): string {
@@ -49,6 +44,8 @@ export interface WrittenReport {
 export type ReportContent = Omit<ReportInput, "figures" | "exports"> & {
   /** SHA-256 of everything the result depends on, to skip unchanged re-runs. */
   inputs: string;
+  /** Tells this worksheet apart from others of the same name (Manifest.worksheet). */
+  worksheetId: string;
 };
 
 /**
@@ -68,7 +65,7 @@ export async function writeReport(
     const files: WrittenFile[] = [];
     const write = async (path: string, data: string, description?: string) => {
       await Deno.writeTextFile(join(stage, path), data);
-      const file: WrittenFile = { path, sha256: await sha256Hex(data) };
+      const file: WrittenFile = { path, sha256: sha256Hex(data) };
       if (description !== undefined) file.description = description;
       files.push(file);
       return file;
@@ -115,12 +112,9 @@ export async function writeReport(
     const html = reportHtml({ ...content, figures, exports });
     await write("index.html", html);
     const verdict = overallVerdict(content.execution);
-    const fingerprint = await sha256Hex(files.map((f) => `${f.path} ${f.sha256}\n`).join(""));
+    const fingerprint = fingerprintOf(files);
     const manifest = manifestOf(name, content, verdict, files, fingerprint);
-    await Deno.writeTextFile(
-      join(stage, "manifest.json"),
-      JSON.stringify(manifest, null, 2) + "\n",
-    );
+    await Deno.writeTextFile(join(stage, manifestFile), manifestText(manifest));
 
     // Swap in: move the old report aside, move the new one in, drop the old one.
     const old = join(outDir, `.${name}.old`);
@@ -144,8 +138,8 @@ async function previousFigures(
   const out = new Map<string, string>();
   try {
     // Reuse only figures drawn by the same package versions.
-    const old = JSON.parse(await Deno.readTextFile(join(dir, "manifest.json"))) as Manifest;
-    if (JSON.stringify(old.provenance.packages) !== JSON.stringify(packages)) return out;
+    const old = await readManifest(dir);
+    if (!old || JSON.stringify(old.provenance.packages) !== JSON.stringify(packages)) return out;
     for await (const e of Deno.readDir(join(dir, "figures"))) {
       if (!e.name.endsWith(".vl.json")) continue;
       const spec = await Deno.readTextFile(join(dir, "figures", e.name));
@@ -182,33 +176,15 @@ async function exists(path: string): Promise<boolean> {
   }
 }
 
-/** Machine-readable results kept beside the report (no timings: it must be reproducible). */
-export interface Manifest {
-  worksheet: string;
-  name: string;
-  title: string;
-  document: string;
-  revision: string;
-  verdict: Verdict;
-  outcome: ExecutionResult["outcome"];
-  problem?: ExecutionResult["problem"];
-  requirements: ReturnType<typeof requirementResults>;
-  params: ReportContent["params"];
-  provenance: Provenance;
-  files: WrittenFile[];
-  fingerprint: string;
-  inputs: string;
-}
-
 function manifestOf(
   name: string,
   content: ReportContent,
   verdict: Verdict,
   files: WrittenFile[],
   fingerprint: string,
-): Manifest {
-  const m: Manifest = {
-    worksheet: content.provenance.worksheetPath,
+): Omit<Manifest, "digest"> {
+  const m: Omit<Manifest, "digest"> = {
+    worksheet: content.worksheetId,
     name,
     title: content.worksheet.meta.title,
     document: content.worksheet.meta.document,

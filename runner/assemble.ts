@@ -1,5 +1,5 @@
 // Stage 2: Worksheet → one TypeScript module whose line N is the worksheet's line N.
-import type { CodePart, SourceProblem, Worksheet } from "./types.ts";
+import type { CodePart, SourceProblem, Worksheet } from "../record/types.ts";
 import { messages } from "./messages.ts";
 import { blockMarker } from "./harness_protocol.ts";
 

@@ -20,7 +20,7 @@ import type {
   RunOutcome,
   SourceProblem,
   Worksheet,
-} from "./types.ts";
+} from "../record/types.ts";
 
 /** Limits of one worksheet run. */
 export interface ExecuteOptions {
@@ -253,6 +253,7 @@ function startChild(
     join(projectRoot, "lib"),
     // The worker's entry point and the sheet API it loads (tapsheet's own code).
     join(projectRoot, "runner"),
+    join(projectRoot, "record"),
     tempDir,
     ...(libraryModule ? [libraryModule] : []),
     ...(access.data ? [access.data] : []),

@@ -5,7 +5,7 @@
 // every requirement verdict from its achieved value and limit.
 import type { MaskSegment } from "../lib/types.ts";
 import type { RequirementResult } from "../lib/verify/requirement.ts";
-import { type Exhibit, figureKinds, isExportName } from "./types.ts";
+import { type Exhibit, figureKinds, isExportName } from "../record/types.ts";
 
 /** Raised when a message breaks the rules; the run is then reported as failed. */
 export class ProtocolError extends Error {

@@ -11,7 +11,7 @@
 // the nonce or the child's standard input, and the port it cannot reach is the
 // only way into the main thread. Whatever the worksheet prints itself arrives
 // without the nonce and is shown as output, never taken as a message.
-import type { Exhibit, ParamValue } from "./types.ts";
+import type { Exhibit, ParamValue } from "../record/types.ts";
 
 /** A message about the run: a block started, an exhibit, an error, or the end. */
 export type HarnessMessage =

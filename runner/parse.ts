@@ -10,7 +10,7 @@ import type {
   SourceProblem,
   Worksheet,
   WorksheetMeta,
-} from "./types.ts";
+} from "../record/types.ts";
 import { messages } from "./messages.ts";
 
 /** Thrown when a worksheet cannot be parsed; carries the file and line. */

@@ -1,5 +1,5 @@
 // Versions and dates recorded in every report.
-import { join } from "node:path";
+import { basename, dirname, join, relative, sep } from "node:path";
 import { projectRoot } from "./execute.ts";
 
 /** tapsheet's own version, from deno.json. */
@@ -38,4 +38,32 @@ export function runDate(given?: string): string {
     return new Date(Number(epoch) * 1000).toISOString().slice(0, 10);
   }
   return new Date().toISOString().slice(0, 10);
+}
+
+/** How a report names its worksheet, whatever path spelling the command line used. */
+export interface WorksheetName {
+  /** Shown in the report: the path from the repository's top folder, else the file name. */
+  display: string;
+  /** Tells worksheets apart: the display path inside a repository, else the real absolute path. */
+  identity: string;
+}
+
+/**
+ * Name a worksheet independently of how its path was spelt (relative,
+ * absolute, from another folder, through a link): resolve the real path, then
+ * take it relative to the nearest folder holding `.git`.
+ */
+export function worksheetName(path: string): WorksheetName {
+  const real = Deno.realPathSync(path);
+  for (let dir = dirname(real);; dir = dirname(dir)) {
+    try {
+      Deno.statSync(join(dir, ".git"));
+      const display = relative(dir, real).split(sep).join("/");
+      return { display, identity: display };
+    } catch {
+      // not the repository's top folder
+    }
+    if (dirname(dir) === dir) break;
+  }
+  return { display: basename(real), identity: real };
 }

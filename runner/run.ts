@@ -2,15 +2,32 @@
 import { basename, dirname, join } from "node:path";
 import { hashOfFiles } from "./fingerprint.ts";
 import { libraryBundle } from "./library_bundle.ts";
-import { sha256Hex, writeReport } from "../render/write.ts";
+import { writeReport } from "../render/write.ts";
 import { preloadRenderer } from "../render/svg.ts";
-import type { Manifest } from "../render/write.ts";
-import type { Verdict } from "../render/report.ts";
+import {
+  checkReportFolder,
+  folderIsIntact,
+  type Manifest,
+  readManifest,
+  sha256Hex,
+} from "../record/manifest.ts";
+import type {
+  ExecutionResult,
+  ParamValue,
+  SourceProblem,
+  Verdict,
+  Worksheet,
+} from "../record/types.ts";
 import { type ExecuteOptions, executeWorksheet, projectRoot } from "./execute.ts";
 import { applyOverrides } from "./params.ts";
 import { parseWorksheet, WorksheetError } from "./parse.ts";
-import { packageVersions, runDate, tapsheetVersion } from "./provenance.ts";
-import type { ExecutionResult, ParamValue, SourceProblem, Worksheet } from "./types.ts";
+import {
+  packageVersions,
+  runDate,
+  tapsheetVersion,
+  type WorksheetName,
+  worksheetName,
+} from "./provenance.ts";
 
 /** Options for one run. */
 export interface RunOptions extends ExecuteOptions {
@@ -24,6 +41,8 @@ export interface RunOptions extends ExecuteOptions {
   date?: string;
   /** Run even when the inputs are unchanged since the existing report. @default false */
   force?: boolean;
+  /** Report folder name inside outDir. @default chosen by {@link reportFolderName} */
+  reportName?: string;
 }
 
 /** The outcome of running one worksheet. */
@@ -39,19 +58,46 @@ export interface RunSummary {
   fingerprint: string;
   /** True when the report was already up to date and nothing ran. */
   skipped: boolean;
+  /** Why an existing report with the same inputs was run again (tampered, incomplete). */
+  rerunBecause?: string;
   durationMs: number;
 }
 
-/** The report folder name of a worksheet: its file name without ".md". */
+/** The plain report folder name of a worksheet: its file name without ".md". */
 export function reportName(path: string): string {
   return basename(path).replace(/\.md$/i, "");
+}
+
+/**
+ * The report folder of a worksheet inside `outDir`: its file name without
+ * ".md", unless that folder holds the report of another worksheet of the same
+ * name (from another folder); then the name gets a short hash of the
+ * worksheet's identity, so neither report overwrites the other.
+ */
+export async function reportFolderName(outDir: string, name: WorksheetName, path: string) {
+  const plain = reportName(path);
+  const other = `${plain}-${sha256Hex(name.identity).slice(0, 8)}`;
+  for (const candidate of [plain, other]) {
+    if ((await readManifest(join(outDir, candidate)))?.worksheet === name.identity) {
+      return candidate;
+    }
+  }
+  const taken = await readManifest(join(outDir, plain));
+  return taken === undefined ? plain : other;
 }
 
 let toolHash: string | undefined;
 
 /** SHA-256 over tapsheet's own code and lock file: a new version invalidates every report. */
 function hashOfTool(): string {
-  toolHash ??= hashOfFiles(projectRoot, ["lib", "runner", "render", "deno.json", "deno.lock"]);
+  toolHash ??= hashOfFiles(projectRoot, [
+    "lib",
+    "record",
+    "runner",
+    "render",
+    "deno.json",
+    "deno.lock",
+  ]);
   return toolHash;
 }
 
@@ -63,12 +109,29 @@ function hashOfData(worksheetPath: string): string {
   return hashOfFiles(dirname(worksheetPath), ["data"]);
 }
 
-async function readManifest(dir: string): Promise<Manifest | undefined> {
-  try {
-    return JSON.parse(await Deno.readTextFile(join(dir, "manifest.json"))) as Manifest;
-  } catch {
-    return undefined;
-  }
+/**
+ * Why an existing report cannot stand for a run with these inputs, or
+ * undefined when it can (same inputs, every file as its manifest lists).
+ */
+async function staleBecause(dir: string, existing: Manifest | undefined, inputs: string) {
+  if (existing === undefined) return "no report";
+  if (existing.inputs !== inputs) return "inputs changed";
+  const check = await checkReportFolder(dir, existing);
+  if (folderIsIntact(check)) return undefined;
+  const files = [...check.changed, ...check.missing, ...check.added];
+  return `the existing report was altered or is incomplete (${
+    files.length > 0 ? files.join(", ") : "manifest.json"
+  })`;
+}
+
+/** Problems as the report shows them: located in the worksheet by its report name. */
+function withDisplayPath(execution: ExecutionResult, path: string, display: string) {
+  const problem = execution.problem;
+  if (problem === undefined) return execution;
+  return {
+    ...execution,
+    problem: { ...problem, path: display, message: problem.message.replaceAll(path, display) },
+  };
 }
 
 /**
@@ -79,9 +142,10 @@ async function readManifest(dir: string): Promise<Manifest | undefined> {
 export async function runWorksheet(path: string, options: RunOptions = {}): Promise<RunSummary> {
   const started = performance.now();
   const text = await Deno.readTextFile(path);
-  const name = reportName(path);
+  const name = worksheetName(path);
   const outDir = options.outDir ?? "reports";
-  const reportDir = join(outDir, name);
+  const folderName = options.reportName ?? await reportFolderName(outDir, name, path);
+  const reportDir = join(outDir, folderName);
   const date = runDate(options.date);
   let worksheet: Worksheet;
   let params: Record<string, ParamValue> = {};
@@ -102,20 +166,21 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
     worksheet = {
       path,
       source: text,
-      meta: { title: name, document: "", revision: "", signoff: [] },
+      meta: { title: reportName(path), document: "", revision: "", signoff: [] },
       params: {},
       parts: [],
     };
   }
 
-  const inputs = await sha256Hex(
+  const inputs = sha256Hex(
     [text, JSON.stringify(params), date, hashOfTool(), hashOfData(path)].join("\n"),
   );
   const existing = await readManifest(reportDir);
-  if (!options.force && existing?.inputs === inputs) {
+  const stale = options.force ? "forced" : await staleBecause(reportDir, existing, inputs);
+  if (stale === undefined && existing !== undefined) {
     const summary: RunSummary = {
       path,
-      name,
+      name: folderName,
       reportDir,
       verdict: existing.verdict,
       outcome: existing.outcome,
@@ -139,15 +204,16 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
       libraryModule ? { ...options, libraryModule } : options,
     )
     : { outcome: "rejected", blocks: [], problem, durationMs: 0 };
-  const report = await writeReport(outDir, name, {
+  const report = await writeReport(outDir, folderName, {
     worksheet,
     params,
     overridden,
-    execution,
+    execution: withDisplayPath(execution, path, name.display),
     inputs,
+    worksheetId: name.identity,
     provenance: {
-      worksheetPath: path,
-      worksheetSha256: await sha256Hex(text),
+      worksheetPath: name.display,
+      worksheetSha256: sha256Hex(text),
       tapsheetVersion: tapsheetVersion(),
       denoVersion: Deno.version.deno,
       packages: packageVersions(),
@@ -157,7 +223,7 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
   const checks = execution.blocks.flatMap((b) => b.exhibits).filter((e) => e.type === "check");
   const summary: RunSummary = {
     path,
-    name,
+    name: folderName,
     reportDir: report.dir,
     verdict: report.verdict,
     outcome: execution.outcome,
@@ -167,6 +233,9 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
     skipped: false,
     durationMs: performance.now() - started,
   };
+  if (existing !== undefined && stale !== "inputs changed" && stale !== "forced") {
+    summary.rerunBecause = stale;
+  }
   if (execution.problem) summary.problem = execution.problem;
   return summary;
 }

@@ -9,11 +9,17 @@
  */
 import type { DesignWarning, MaskSegment } from "../lib/types.ts";
 import type { RequirementResult } from "../lib/verify/requirement.ts";
-import type { Exhibit, FigureKind, ParamValue } from "./types.ts";
+import {
+  type Exhibit,
+  type FigureKind,
+  figureKinds,
+  isExportName,
+  type ParamValue,
+} from "../record/types.ts";
 
 export type { DesignWarning, MaskSegment } from "../lib/types.ts";
 export type { RequirementResult } from "../lib/verify/requirement.ts";
-export type { Exhibit, FigureKind, ParamValue } from "./types.ts";
+export type { Exhibit, FigureKind, ParamValue } from "../record/types.ts";
 
 /** A figure as a worksheet describes it. */
 export interface FigureSpec {
@@ -117,6 +123,11 @@ export const sheet = {
     if (typeof spec?.title !== "string" || !Array.isArray(spec.series)) {
       throw new TypeError("sheet.figure needs { kind, title, series: [{ name, x, y }] }");
     }
+    if (!figureKinds.includes(spec.kind)) {
+      throw new TypeError(
+        `Figure kind must be one of ${figureKinds.join(", ")}, got '${String(spec.kind)}'`,
+      );
+    }
     sink({
       type: "figure",
       kind: spec.kind,
@@ -141,6 +152,15 @@ export const sheet = {
   },
   /** Show a table. */
   table(title: string, columns: string[], rows: (string | number)[][]): void {
+    rows.forEach((row, i) => {
+      if (!Array.isArray(row) || row.length !== columns.length) {
+        throw new RangeError(
+          `Table '${title}' has ${columns.length} columns, but row ${i + 1} has ${
+            Array.isArray(row) ? row.length : "no"
+          } cells`,
+        );
+      }
+    });
     sink({
       type: "table",
       title: String(title),
@@ -170,7 +190,7 @@ export const sheet = {
   },
   /** Hand over a file (C header, CSV…); the runner writes it beside the report. */
   exportFile(fileName: string, content: string, description?: string): void {
-    if (!/^[A-Za-z0-9][A-Za-z0-9._-]{0,99}$/.test(fileName) || fileName.includes("..")) {
+    if (!isExportName(fileName)) {
       throw new RangeError(
         `Export file names may hold only letters, digits, '.', '_' and '-', got '${fileName}'`,
       );

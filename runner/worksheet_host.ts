@@ -6,7 +6,7 @@
 // Then it imports the assembled worksheet module and reports the end.
 import { connectSheet } from "./sheet.ts";
 import { blockMarker, type HarnessMessage, type HostStart } from "./harness_protocol.ts";
-import type { Exhibit } from "./types.ts";
+import type { Exhibit } from "../record/types.ts";
 
 // Captured now, while only tapsheet's code has run: later changes to these
 // by a worksheet cannot reach the port.

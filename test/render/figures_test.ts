@@ -1,7 +1,7 @@
 import assert from "node:assert/strict";
 import { figureToVegaLite, thin } from "../../render/figures.ts";
 import { vegaLiteToSvg } from "../../render/svg.ts";
-import type { FigureExhibit, FigureKind } from "../../runner/types.ts";
+import type { FigureExhibit, FigureKind } from "../../record/types.ts";
 
 const f = Array.from({ length: 65 }, (_, i) => i * 100);
 const db = f.map((x) => (x < 2000 ? 0 : -60 - (x % 300) / 10));

@@ -1,8 +1,9 @@
 import assert from "node:assert/strict";
 import { judge } from "../../lib/verify/requirement.ts";
-import { formatNumber, overallVerdict, reportHtml } from "../../render/report.ts";
+import { formatNumber, reportHtml } from "../../render/report.ts";
+import { overallVerdict } from "../../record/verdict.ts";
 import { proseToHtml } from "../../render/html.ts";
-import type { ExecutionResult, Worksheet } from "../../runner/types.ts";
+import type { ExecutionResult, Worksheet } from "../../record/types.ts";
 
 const attack = `<script>alert(1)</script><img src=x onerror=alert(2)>`;
 

@@ -2,7 +2,7 @@ import assert from "node:assert/strict";
 import { join } from "node:path";
 import { renderCount } from "../../render/svg.ts";
 import { type ReportContent, writeReport } from "../../render/write.ts";
-import type { FigureExhibit } from "../../runner/types.ts";
+import type { FigureExhibit } from "../../record/types.ts";
 import { runToEnd } from "../_process.ts";
 
 function content(figures: FigureExhibit[]): ReportContent {
@@ -17,6 +17,7 @@ function content(figures: FigureExhibit[]): ReportContent {
     params: {},
     overridden: [],
     inputs: "x",
+    worksheetId: "w.md",
     execution: {
       outcome: "completed",
       durationMs: 1,

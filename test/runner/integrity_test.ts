@@ -43,6 +43,7 @@ Deno.test("integrity: writeReport itself refuses an export name with a folder in
         params: {},
         overridden: [],
         inputs: "0",
+        worksheetId: "w.md",
         execution: {
           outcome: "completed",
           durationMs: 0,

@@ -3,7 +3,7 @@
 import assert from "node:assert/strict";
 import { executeWorksheet } from "../../runner/execute.ts";
 import { parseWorksheet } from "../../runner/parse.ts";
-import type { RunOutcome } from "../../runner/types.ts";
+import type { RunOutcome } from "../../record/types.ts";
 
 const dir = new URL("./hostile/", import.meta.url);
 

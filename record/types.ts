@@ -1,4 +1,6 @@
-// Data passed between the runner's stages: parse → assemble → execute → render.
+// The design record: what a run produced, as the runner hands it to the
+// renderer and to compare and approve. Data only; no stage imports another's
+// internals, they all import these types.
 import type { DesignWarning, MaskSegment } from "../lib/types.ts";
 import type { RequirementResult } from "../lib/verify/requirement.ts";
 
@@ -199,4 +201,27 @@ export interface ExecutionResult {
   problem?: SourceProblem;
   /** Wall-clock time of the child process in ms (not shown in the report). */
   durationMs: number;
+}
+
+/** The overall verdict of a run. */
+export type Verdict = "met" | "not met" | "incomplete" | "no requirements";
+
+/** A file written beside the report. */
+export interface WrittenFile {
+  /** Path relative to the report folder, e.g. "exports/lowpass.h". */
+  path: string;
+  sha256: string;
+  description?: string;
+}
+
+/** Facts that make the run reproducible. */
+export interface Provenance {
+  worksheetSha256: string;
+  /** Path of the worksheet as given on the command line. */
+  worksheetPath: string;
+  tapsheetVersion: string;
+  denoVersion: string;
+  packages: { name: string; version: string }[];
+  /** Run date, ISO 8601 (pinned by SOURCE_DATE_EPOCH or --date for reproducible reports). */
+  date: string;
 }
