@@ -2,7 +2,6 @@
 import type { RequirementResult } from "../lib/verify/requirement.ts";
 import type {
   BlockResult,
-  CheckExhibit,
   ChoiceExhibit,
   CoefficientsExhibit,
   ExecutionResult,

@@ -2,12 +2,7 @@
 // manifest.json. Built in a hidden folder and swapped in whole, so a run that
 // is killed at any moment leaves the previous report intact.
 import { join, resolve, sep } from "node:path";
-import {
-  type ExecutionResult,
-  type Exhibit,
-  type FigureExhibit,
-  isExportName,
-} from "../record/types.ts";
+import { type Exhibit, type FigureExhibit, isExportName } from "../record/types.ts";
 import { figureToVegaLite } from "./figures.ts";
 import {
   fingerprintOf,
