@@ -10,6 +10,7 @@ import { writeReportsIndex } from "../render/index_page.ts";
 import { findChromium, printToPdf } from "./chromium.ts";
 import { parseWorksheet, WorksheetError } from "./parse.ts";
 import { type RunOptions, type RunSummary, runWorksheet } from "./run.ts";
+import { NoReportError, type Verification, verifyReport } from "./verify.ts";
 
 /** Exit codes, documented in `tapsheet run --help`. */
 export const exitCodes = { met: 0, notMet: 1, failed: 2 } as const;
@@ -32,12 +33,17 @@ async function collect(paths: string[]): Promise<string[]> {
     }
     if (info.isDirectory) {
       const names: string[] = [];
+      let subfolders = 0;
       for await (const e of Deno.readDir(path)) {
+        if (e.isDirectory) subfolders++;
         if (e.isFile && e.name.endsWith(".md") && e.name.toLowerCase() !== "readme.md") {
           names.push(e.name);
         }
       }
+      if (names.length === 0) throw new UsageError(messages.cli.noWorksheetsIn(path, subfolders));
       out.push(...names.sort().map((n) => join(path, n)));
+    } else if (!/\.md$/i.test(path)) {
+      throw new UsageError(messages.cli.notMarkdown(path));
     } else out.push(path);
   }
   return out;
@@ -48,7 +54,12 @@ interface Parsed {
   options: Map<string, string[]>;
 }
 
-function parseArgs(args: string[], valued: string[], flags: string[]): Parsed {
+function parseArgs(
+  command: string,
+  args: string[],
+  valued: string[],
+  flags: string[],
+): Parsed {
   const positional: string[] = [];
   const options = new Map<string, string[]>();
   for (let i = 0; i < args.length; i++) {
@@ -69,7 +80,7 @@ function parseArgs(args: string[], valued: string[], flags: string[]): Parsed {
       if (value === undefined) throw new UsageError(messages.cli.missingValue(name));
       options.set(name, [...(options.get(name) ?? []), value]);
     } else {
-      throw new UsageError(messages.cli.unknownOption(name));
+      throw new UsageError(messages.cli.unknownOption(name, command));
     }
   }
   return { positional, options };
@@ -80,6 +91,36 @@ function positiveNumber(name: string, text: string | undefined): number | undefi
   const v = Number(text);
   if (!(v > 0) || !Number.isFinite(v)) throw new UsageError(messages.cli.badNumber(name, text));
   return v;
+}
+
+/** Parameter overrides from a YAML or JSON file of name: value pairs. */
+async function readParamsFile(path: string): Promise<Record<string, unknown>> {
+  let text: string;
+  try {
+    text = await Deno.readTextFile(path);
+  } catch {
+    throw new UsageError(messages.cli.paramsFileMissing(path));
+  }
+  let parsed: unknown;
+  try {
+    parsed = parseYaml(text);
+  } catch (error) {
+    const detail = error instanceof Error ? error.message.split("\n")[0]! : String(error);
+    throw new UsageError(messages.cli.paramsFileYaml(path, detail));
+  }
+  if (parsed === null || typeof parsed !== "object" || Array.isArray(parsed)) {
+    throw new UsageError(messages.cli.badParamsFile(path));
+  }
+  return parsed as Record<string, unknown>;
+}
+
+/** The output folder may be missing (it is made) but must not be a file. */
+async function checkOutFolder(path: string): Promise<void> {
+  try {
+    if (!(await Deno.stat(path)).isDirectory) throw new UsageError(messages.cli.outIsFile(path));
+  } catch (error) {
+    if (error instanceof UsageError) throw error;
+  }
 }
 
 /** A calendar date YYYY-MM-DD that exists (2026-02-30 does not). */
@@ -110,6 +151,7 @@ function verdictLabel(s: RunSummary): string {
 
 async function commandRun(args: string[]): Promise<number> {
   const { positional, options } = parseArgs(
+    "run",
     args,
     ["--out", "--set", "--params", "--timeout", "--memory", "--date", "--json"],
     ["--help", "--pdf", "--force", "--exit-zero"],
@@ -121,16 +163,11 @@ async function commandRun(args: string[]): Promise<number> {
   const date = options.get("--date")?.at(-1);
   if (date !== undefined) checkedDate(date);
   const paramsFile = options.get("--params")?.at(-1);
-  let paramsFromFile: Record<string, unknown> = {};
-  if (paramsFile !== undefined) {
-    const parsed = parseYaml(await Deno.readTextFile(paramsFile));
-    if (parsed === null || typeof parsed !== "object" || Array.isArray(parsed)) {
-      throw new UsageError(messages.cli.badParamsFile(paramsFile));
-    }
-    paramsFromFile = parsed as Record<string, unknown>;
-  }
+  const paramsFromFile = paramsFile === undefined ? {} : await readParamsFile(paramsFile);
+  const outDir = options.get("--out")?.at(-1) ?? "reports";
+  await checkOutFolder(outDir);
   const runOptions: RunOptions = {
-    outDir: options.get("--out")?.at(-1) ?? "reports",
+    outDir,
     settings: options.get("--set") ?? [],
     paramsFromFile,
   };
@@ -142,12 +179,15 @@ async function commandRun(args: string[]): Promise<number> {
   if (options.has("--force")) runOptions.force = true;
 
   const files = await collect(positional);
+  // With --json -, standard output carries the JSON alone; the progress lines go to standard error.
+  const jsonToStdout = options.get("--json")?.at(-1) === "-";
+  const say = jsonToStdout ? console.error : console.log;
   const summaries: RunSummary[] = [];
   for (const file of files) {
     const summary = await runWorksheet(file, runOptions);
     summaries.push(summary);
     const p = summary.problem;
-    console.log(
+    say(
       `${verdictLabel(summary)}  ${file}  ${summary.met}/${summary.checked} requirements met  ${
         summary.skipped ? "unchanged, not re-run" : formatDuration(summary.durationMs)
       }  → ${join(summary.reportDir, "index.html")}`,
@@ -156,9 +196,10 @@ async function commandRun(args: string[]): Promise<number> {
       console.error(`  ${p.path}:${p.line}${p.column ? `:${p.column}` : ""}: ${p.message}`);
       if (p.excerpt) console.error(`  ${p.line} | ${p.excerpt}`);
     }
-    if (options.has("--pdf")) await writePdf(summary.reportDir);
+    if (summary.rerunBecause) console.error(`  ${messages.cli.rerunBecause(summary.rerunBecause)}`);
+    if (options.has("--pdf")) await writePdf(summary.reportDir, say);
   }
-  if (summaries.length > 1) printSummary(summaries);
+  if (summaries.length > 1) printSummary(summaries, say);
   await writeReportsIndex(runOptions.outDir!);
   const json = options.get("--json")?.at(-1);
   if (json !== undefined) {
@@ -188,7 +229,7 @@ async function commandRun(args: string[]): Promise<number> {
 }
 
 /** Print a report to report.pdf beside it with headless Chromium, when installed. */
-async function writePdf(reportDir: string): Promise<void> {
+async function writePdf(reportDir: string, say: (line: string) => void): Promise<void> {
   if (findChromium() === undefined) {
     console.error(`  ${messages.cli.noChromium}`);
     return;
@@ -197,10 +238,10 @@ async function writePdf(reportDir: string): Promise<void> {
   const temp = join(reportDir, `.report.pdf.${crypto.randomUUID().slice(0, 8)}`);
   await Deno.writeFile(temp, pdf);
   await Deno.rename(temp, join(reportDir, "report.pdf"));
-  console.log(`  → ${join(reportDir, "report.pdf")}`);
+  say(`  → ${join(reportDir, "report.pdf")}`);
 }
 
-function printSummary(summaries: RunSummary[]): void {
+function printSummary(summaries: RunSummary[], say: (line: string) => void): void {
   const rows = summaries.map((s) => [
     s.name,
     s.verdict === "incomplete" ? "failed" : s.verdict,
@@ -210,14 +251,14 @@ function printSummary(summaries: RunSummary[]): void {
   const head = ["Worksheet", "Verdict", "Met", "Time"];
   const widths = head.map((h, i) => Math.max(h.length, ...rows.map((r) => r[i]!.length)));
   const line = (r: string[]) => r.map((c, i) => c.padEnd(widths[i]!)).join("  ").trimEnd();
-  console.log("\n" + line(head));
-  console.log(widths.map((w) => "-".repeat(w)).join("  "));
-  for (const r of rows) console.log(line(r));
+  say("\n" + line(head));
+  say(widths.map((w) => "-".repeat(w)).join("  "));
+  for (const r of rows) say(line(r));
 }
 
 /** Type-check worksheets without running them. */
 async function commandCheck(args: string[]): Promise<number> {
-  const { positional, options } = parseArgs(args, [], ["--help"]);
+  const { positional, options } = parseArgs("check", args, [], ["--help"]);
   if (options.has("--help")) {
     console.log(messages.cli.checkUsage);
     return 0;
@@ -317,7 +358,7 @@ async function typeCheck(
 
 /** Start a worksheet from a template. */
 async function commandNew(args: string[]): Promise<number> {
-  const { positional, options } = parseArgs(args, [], ["--help", "--force"]);
+  const { positional, options } = parseArgs("new", args, [], ["--help", "--force"]);
   const templates = join(projectRoot, "worksheets", "templates");
   const available: string[] = [];
   try {
@@ -350,48 +391,44 @@ async function commandNew(args: string[]): Promise<number> {
   return 0;
 }
 
-/** Re-run a worksheet and compare with the fingerprint of its existing report. */
+/**
+ * Prove a report is what its worksheet produces: every file against its
+ * manifest, then a fresh run compared byte for byte (runner/verify.ts).
+ */
 async function commandVerify(args: string[]): Promise<number> {
-  const { positional, options } = parseArgs(args, ["--out"], ["--help"]);
+  const { positional, options } = parseArgs("verify", args, ["--out"], ["--help"]);
   if (options.has("--help") || positional.length !== 1) {
     console.log(messages.cli.verifyUsage);
     return options.has("--help") ? 0 : exitCodes.failed;
   }
   const file = positional[0]!;
+  await collect([file]);
   const outDir = options.get("--out")?.at(-1) ?? "reports";
-  const name = basename(file).replace(/\.md$/i, "");
-  const manifestPath = join(outDir, name, "manifest.json");
-  let manifest: {
-    fingerprint: string;
-    params: Record<string, unknown>;
-    provenance: { date: string };
-  };
+  let v: Verification;
   try {
-    manifest = JSON.parse(await Deno.readTextFile(manifestPath));
-  } catch {
-    throw new UsageError(messages.cli.noReport(manifestPath));
+    v = await verifyReport(file, outDir);
+  } catch (error) {
+    if (error instanceof NoReportError) throw new UsageError(messages.cli.noReport(error.message));
+    throw error;
   }
-  const scratch = await Deno.makeTempDir({ prefix: "tapsheet-verify-" });
-  try {
-    const summary = await runWorksheet(file, {
-      outDir: scratch,
-      paramsFromFile: manifest.params,
-      date: manifest.provenance.date,
-    });
-    const same = summary.fingerprint === manifest.fingerprint;
-    console.log(
-      same
-        ? `${paint("32", "matches")}  ${file}: the report in ${
-          join(outDir, name)
-        } is what this worksheet produces`
-        : `${paint("31", "differs")}  ${file}: re-running gives a different report than ${
-          join(outDir, name)
-        }`,
-    );
-    return same ? 0 : exitCodes.notMet;
-  } finally {
-    await Deno.remove(scratch, { recursive: true }).catch(() => {});
-  }
+  const m = messages.cli.verify;
+  const lines: string[] = [];
+  if (!v.folder.manifestIntact) lines.push(m.manifestEdited);
+  for (const path of v.folder.changed) lines.push(m.changed(path));
+  for (const path of v.folder.missing) lines.push(m.missing(path));
+  for (const path of v.folder.added) lines.push(m.added(path));
+  if (v.rerunProblem !== undefined) lines.push(m.cannotRerun(v.rerunProblem));
+  for (const path of v.differFromRerun) lines.push(m.differsFromRerun(path));
+  for (const path of v.onlyInReport) lines.push(m.notProduced(path));
+  for (const path of v.onlyInRerun) lines.push(m.notInReport(path));
+  for (const path of v.unchecked) lines.push(m.unchecked(path));
+  console.log(
+    v.matches
+      ? `${paint("32", "matches")}  ${m.matches(file, v.reportDir, v.manifest.fingerprint)}`
+      : `${paint("31", "differs")}  ${m.differs(file, v.reportDir)}`,
+  );
+  for (const line of lines) console.log(`  ${line}`);
+  return v.matches ? 0 : exitCodes.notMet;
 }
 
 /** Quiet time after the last change before a re-run starts, in ms. */
@@ -404,7 +441,9 @@ const watchDebounceMs = 150;
  * exactly one more run, and a burst of saves within the debounce time makes one.
  */
 async function commandWatch(args: string[]): Promise<number> {
-  const { positional, options } = parseArgs(args, ["--out", "--set", "--date"], ["--help"]);
+  const { positional, options } = parseArgs("watch", args, ["--out", "--set", "--date"], [
+    "--help",
+  ]);
   if (options.has("--help") || positional.length !== 1) {
     console.log(messages.cli.watchUsage);
     return options.has("--help") ? 0 : exitCodes.failed;
@@ -415,6 +454,7 @@ async function commandWatch(args: string[]): Promise<number> {
     outDir: options.get("--out")?.at(-1) ?? "reports",
     settings: options.get("--set") ?? [],
   };
+  await checkOutFolder(runOptions.outDir!);
   const date = options.get("--date")?.at(-1);
   if (date !== undefined) runOptions.date = checkedDate(date);
   const worksheet = resolve(file);
@@ -502,6 +542,12 @@ export async function main(args: string[]): Promise<number> {
   } catch (error) {
     if (error instanceof UsageError || error instanceof ParamError) {
       console.error(`tapsheet: ${error.message}`);
+      return exitCodes.failed;
+    }
+    // The file system refused something the command line asked for (a folder
+    // that cannot be written, a file that vanished): say so, without a trace.
+    if (Object.values(Deno.errors).some((kind) => error instanceof kind)) {
+      console.error(`tapsheet: ${(error as Error).message}`);
       return exitCodes.failed;
     }
     throw error;

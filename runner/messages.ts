@@ -7,6 +7,10 @@ export const messages = {
     unclosedFrontMatter: "Front matter starts on line 1 but has no closing '---' line",
     badYaml: (detail: string) => `Front matter is not valid YAML: ${detail}`,
     frontMatterNotMapping: "Front matter must be a YAML mapping (name: value lines)",
+    unknownKey: (key: string, suggestion: string | undefined) =>
+      `Unknown front-matter key '${key}'${
+        suggestion ? ` (did you mean '${suggestion}'?)` : ""
+      }; front matter holds title, document, revision, params and signoff`,
     missingField: (key: string) => `Front matter must have '${key}:'`,
     fieldNotText: (key: string) => `Front matter '${key}' must be text or a number`,
     signoffShape: "'signoff' must be a list of roles, each a text or { role: …, name: … }",
@@ -80,16 +84,16 @@ export const messages = {
   cli: {
     usage: `tapsheet: turn filter-design worksheets into signed-off design reports
 
-Usage:
-  tapsheet run <worksheet.md or folder>... [options]   run worksheets, write reports
-  tapsheet check <worksheet.md or folder>...           type-check worksheets without running them
-  tapsheet new <template> <file.md>                    start a worksheet from a template
-  tapsheet verify <worksheet.md> [--out DIR]           re-run and compare with the existing report
-  tapsheet watch <worksheet.md> [--out DIR]            re-run whenever the worksheet or its data change
-  tapsheet help [command]                              show help
+Usage (in the tapsheet folder; without Deno installed, start each with npx -y deno@2.9.6):
+  deno task tapsheet run <worksheet.md or folder>... [options]   run worksheets, write reports
+  deno task tapsheet check <worksheet.md or folder>...           type-check without running
+  deno task tapsheet new <template> <file.md>                    start from a template
+  deno task tapsheet verify <worksheet.md> [--out DIR]           prove a report is what it says
+  deno task tapsheet watch <worksheet.md> [--out DIR]            re-run on every change
+  deno task tapsheet help [command]                              show help
 
-Run 'tapsheet <command> --help' for the options of a command.`,
-    runUsage: `tapsheet run <worksheet.md or folder>... [options]
+Run 'deno task tapsheet <command> --help' for the options of a command.`,
+    runUsage: `deno task tapsheet run <worksheet.md or folder>... [options]
 
 Runs each worksheet in a sandbox and writes reports/<name>/index.html with its
 figures, exports and manifest.json.
@@ -113,12 +117,12 @@ Exit codes:
   0  every requirement met
   1  a requirement is not met
   2  a worksheet failed (error, timeout, sandbox refusal) or bad command-line use`,
-    checkUsage: `tapsheet check <worksheet.md or folder>...
+    checkUsage: `deno task tapsheet check <worksheet.md or folder>...
 
 Type-checks each worksheet's code without running it, and applies the
 sandbox's import rules. Exit code 0 when all pass, 2 otherwise.`,
     newUsage: (templates: string[]) =>
-      `tapsheet new <template> <file.md> [--force]
+      `deno task tapsheet new <template> <file.md> [--force]
 
 Copies a template worksheet to a new file for you to edit.
 Templates: ${templates.join(", ") || "none"}`,
@@ -127,29 +131,66 @@ Templates: ${templates.join(", ") || "none"}`,
     exists: (path: string) => `${path} exists already; pass --force to overwrite it`,
     wroteTemplate: (path: string, template: string) =>
       `Wrote ${path} from template '${template}'. Edit its front matter and prose, then:\n  deno task tapsheet run ${path}`,
-    verifyUsage: `tapsheet verify <worksheet.md> [--out DIR]
+    verifyUsage: `deno task tapsheet verify <worksheet.md> [--out DIR]
 
-Re-runs the worksheet with the parameters and date recorded in its report and
-says whether the new report's fingerprint matches the existing one.
-Exit code 0 when it matches, 1 when it does not, 2 on error.`,
+Proves that the worksheet's report is exactly what the worksheet produces:
+  1. every file of the report against the SHA-256 its manifest lists, naming
+     each file that changed, is missing or was added;
+  2. a fresh run with the parameters and date recorded in the report, compared
+     byte for byte with every file of the report, the manifest included.
+report.pdf (from run --pdf) is a printed copy and is not checked.
+Exit code 0 when both hold, 1 when either does not, 2 on error.`,
     noReport: (manifest: string) => `No report to verify: ${manifest} is missing or unreadable`,
+    verify: {
+      matches: (file: string, dir: string, fingerprint: string) =>
+        `${file}: every file of ${dir} is as its manifest lists, and a fresh run gives the same bytes (fingerprint ${
+          fingerprint.slice(0, 16)
+        })`,
+      differs: (file: string, dir: string) => `${file}: ${dir} is not what this worksheet produces`,
+      manifestEdited:
+        "manifest.json  edited: its digest or fingerprint does not match its own content",
+      changed: (path: string) => `${path}  changed since the report was written`,
+      missing: (path: string) => `${path}  missing from the report`,
+      added: (path: string) => `${path}  added: not part of the report`,
+      cannotRerun: (why: string) => `the worksheet cannot be re-run as recorded: ${why}`,
+      differsFromRerun: (path: string) => `${path}  differs from what the worksheet produces now`,
+      notProduced: (path: string) => `${path}  is not produced by the worksheet now`,
+      notInReport: (path: string) => `${path}  is produced by the worksheet but not in the report`,
+      unchecked: (path: string) => `${path}  not checked: a printed copy, not part of the record`,
+    },
     watching: (dir: string) => `Watching ${dir} for changes (Ctrl-C to stop)`,
     watchRunning: (path: string) => `running ${path}…`,
     watchedFileGone: (path: string) => `${path} is gone; waiting for it to come back`,
     interrupted: (signal: string) =>
       `tapsheet: stopped by ${signal}; no report was left half-written`,
     badParamsFile: (path: string) => `Parameters file ${path} must hold name: value pairs`,
-    watchUsage: `tapsheet watch <worksheet.md> [--out DIR] [--set name=value]... [--date YYYY-MM-DD]
+    rerunBecause: (why: string) => `re-run: ${why}`,
+    watchUsage:
+      `deno task tapsheet watch <worksheet.md> [--out DIR] [--set name=value]... [--date YYYY-MM-DD]
 
 Runs the worksheet, then runs it again whenever it or a file under its data/
 folder changes. Figures whose content did not change are not rendered again.
 Stop with Ctrl-C.`,
     noChromium: "No PDF written: Chromium is not installed (on Debian: apt-get install chromium)",
-    unknownCommand: (name: string) => `Unknown command '${name}'. Run 'tapsheet --help'.`,
-    unknownOption: (name: string) => `Unknown option '${name}'. Run 'tapsheet run --help'.`,
+    unknownCommand: (name: string) =>
+      `Unknown command '${name}'. Run 'deno task tapsheet help' for the commands.`,
+    unknownOption: (name: string, command: string) =>
+      `Unknown option '${name}'. Run 'deno task tapsheet ${command} --help' for its options.`,
     missingValue: (name: string) => `Option '${name}' needs a value`,
     noWorksheets: "Give at least one worksheet file or folder",
     notFound: (path: string) => `No such worksheet or folder: ${path}`,
+    noWorksheetsIn: (path: string, subfolders: number) =>
+      subfolders > 0
+        ? `${path} holds no worksheets (*.md), only ${subfolders} subfolder${
+          subfolders === 1 ? "" : "s"
+        }; folders are not searched below their top level: name the subfolder instead`
+        : `${path} is empty: it holds no worksheets (*.md)`,
+    notMarkdown: (path: string) =>
+      `${path} is not a worksheet: worksheets are Markdown files (*.md)`,
+    outIsFile: (path: string) => `--out must name a folder for the reports, but ${path} is a file`,
+    paramsFileMissing: (path: string) => `Parameters file ${path} does not exist or cannot be read`,
+    paramsFileYaml: (path: string, detail: string) =>
+      `Parameters file ${path} is not valid YAML or JSON: ${detail}`,
     badNumber: (name: string, text: string) =>
       `Option '${name}' needs a positive number, got '${text}'`,
     badDate: (text: string) => `--date needs a real calendar date as YYYY-MM-DD, got '${text}'`,

@@ -79,6 +79,12 @@ export function parseWorksheet(path: string, text: string): ParsedWorksheet {
   if (!isMap(root)) fail(2, messages.parse.frontMatterNotMapping);
   const lineOf = (node: unknown): number => yamlLine((node as YamlNode | null)?.range?.[0]);
 
+  for (const pair of (root as YAMLMap).items) {
+    const key = String((pair.key as { value?: unknown } | null)?.value ?? pair.key);
+    if (!frontMatterKeys.includes(key)) {
+      fail(lineOf(pair.key), messages.parse.unknownKey(key, closest(key, frontMatterKeys)));
+    }
+  }
   const field = (key: string): unknown => (root as YAMLMap).get(key, true);
   const textField = (key: string, required: boolean): string => {
     const node = field(key) as YamlNode | undefined;
@@ -198,6 +204,38 @@ export function parseWorksheet(path: string, text: string): ParsedWorksheet {
   }
   flushProse(line);
   return { path, source, meta, params, paramRules, paramLines, parts };
+}
+
+/** The keys front matter may hold; anything else is a mistake worth stopping for. */
+export const frontMatterKeys: readonly string[] = [
+  "title",
+  "document",
+  "revision",
+  "params",
+  "signoff",
+];
+
+/** The known word nearest to a misspelt one (at most two edits away), if any. */
+export function closest(word: string, known: readonly string[]): string | undefined {
+  const distance = (a: string, b: string) => {
+    let row = Array.from({ length: b.length + 1 }, (_, j) => j);
+    for (let i = 1; i <= a.length; i++) {
+      const next = [i];
+      for (let j = 1; j <= b.length; j++) {
+        const cost = a[i - 1] === b[j - 1] ? 0 : 1;
+        next[j] = Math.min(row[j]! + 1, next[j - 1]! + 1, row[j - 1]! + cost);
+      }
+      row = next;
+    }
+    return row[b.length]!;
+  };
+  let best: string | undefined;
+  let bestDistance = 3;
+  for (const k of known) {
+    const d = distance(word.toLowerCase(), k.toLowerCase());
+    if (d < bestDistance) [best, bestDistance] = [k, d];
+  }
+  return best;
 }
 
 function isParamValue(value: unknown): value is ParamValue {

@@ -246,3 +246,110 @@ Deno.test("cli: a syntax error is reported at file:line:column with the line sho
     await Deno.remove(out, { recursive: true });
   }
 });
+
+Deno.test("cli: mistakes in files and folders given on the command line exit 2 with a message, no trace", async () => {
+  const dir = await Deno.makeTempDir();
+  try {
+    await Deno.mkdir(join(dir, "only-folders", "inner"), { recursive: true });
+    await Deno.mkdir(join(dir, "empty"));
+    await Deno.writeTextFile(join(dir, "a-file"), "not a folder\n");
+    await Deno.writeTextFile(join(dir, "broken.yaml"), "taps: [1, 2\n");
+    await Deno.writeTextFile(join(dir, "notes.txt"), "hello\n");
+    const cases: [string, string[], RegExp][] = [
+      [
+        "missing parameters file",
+        ["run", demo, "--params", join(dir, "none.yaml")],
+        /none\.yaml does not exist/,
+      ],
+      [
+        "parameters file that is not YAML",
+        ["run", demo, "--params", join(dir, "broken.yaml")],
+        /broken\.yaml is not valid YAML or JSON/,
+      ],
+      [
+        "--out naming a file",
+        ["run", demo, "--out", join(dir, "a-file")],
+        /--out must name a folder .*a-file is a file/,
+      ],
+      [
+        "a folder of subfolders only",
+        ["run", join(dir, "only-folders")],
+        /holds no worksheets \(\*\.md\), only 1 subfolder/,
+      ],
+      ["an empty folder", ["run", join(dir, "empty")], /empty\S* is empty: it holds no worksheets/],
+      [
+        "a file that is not Markdown",
+        ["run", join(dir, "notes.txt")],
+        /notes\.txt is not a worksheet/,
+      ],
+      [
+        "unknown option names its command",
+        ["verify", demo, "--fast"],
+        /deno task tapsheet verify --help/,
+      ],
+    ];
+    for (const [what, args, message] of cases) {
+      const r = await tapsheet(args);
+      assert.equal(r.code, 2, `${what}: ${r.stderr}`);
+      assert.match(r.stderr, message, what);
+      assert.doesNotMatch(
+        r.stderr,
+        /\bat .*\.ts:\d+:\d+|--allow-/,
+        `${what}: no trace, no Deno flags`,
+      );
+    }
+  } finally {
+    await Deno.remove(dir, { recursive: true });
+  }
+});
+
+Deno.test("cli: misspelt front matter, unknown figure kinds and short table rows point at the worksheet's line", async () => {
+  const dir = await Deno.makeTempDir();
+  try {
+    const cases: [string, string, RegExp][] = [
+      [
+        "---\ntitle: Misspelt\ndocumnet: X-1\n---\n\nProse.\n",
+        "misspelt",
+        /misspelt\.md:3: Unknown front-matter key 'documnet' \(did you mean 'document'\?\)/,
+      ],
+      [
+        '---\ntitle: Kind\n---\n\n```ts\nimport { sheet } from "tapsheet/sheet";\nsheet.figure({ kind: "bode" as never, title: "t", series: [] });\n```\n',
+        "kind",
+        /kind\.md:7:\d+: TypeError: Figure kind must be one of magnitude, .*got 'bode'/,
+      ],
+      [
+        '---\ntitle: Rows\n---\n\n```ts\nimport { sheet } from "tapsheet/sheet";\nsheet.table("Taps", ["n", "h"], [[0, 0.5], [1]]);\n```\n',
+        "rows",
+        /rows\.md:7:\d+: RangeError: Table 'Taps' has 2 columns, but row 2 has 1 cells/,
+      ],
+    ];
+    for (const [text, name, message] of cases) {
+      const file = join(dir, `${name}.md`);
+      await Deno.writeTextFile(file, text);
+      const r = await tapsheet(["run", file, "--out", join(dir, "reports")]);
+      assert.equal(r.code, 2, `${name}: ${r.stdout}${r.stderr}`);
+      assert.match(r.stderr, message, name);
+    }
+  } finally {
+    await Deno.remove(dir, { recursive: true });
+  }
+});
+
+Deno.test("cli: run --json - writes only JSON on standard output", async () => {
+  const out = await Deno.makeTempDir();
+  try {
+    const r = await tapsheet(["run", demo, demo, "--out", out, "--json", "-"]);
+    const parsed = JSON.parse(r.stdout);
+    assert.equal(parsed.length, 2);
+    assert.match(r.stderr, /pump_monitor_antialias\.md/);
+  } finally {
+    await Deno.remove(out, { recursive: true });
+  }
+});
+
+Deno.test("cli: help names the command a user types", async () => {
+  const r = await tapsheet(["help"]);
+  assert.match(r.stdout, /deno task tapsheet run <worksheet\.md or folder>/);
+  const unknown = await tapsheet(["frobnicate"]);
+  assert.match(unknown.stderr, /Run 'deno task tapsheet help'/);
+});
