@@ -16,3 +16,4 @@
  * @module
  */
 export * from "./band_layout.ts";
+export * from "./implementation_cost.ts";
