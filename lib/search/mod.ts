@@ -15,5 +15,7 @@
  *
  * @module
  */
+export * from "./types.ts";
 export * from "./band_layout.ts";
 export * from "./implementation_cost.ts";
+export * from "./search_designs.ts";
