@@ -19,3 +19,4 @@ export * from "./types.ts";
 export * from "./band_layout.ts";
 export * from "./implementation_cost.ts";
 export * from "./search_designs.ts";
+export * from "./comparison.ts";
