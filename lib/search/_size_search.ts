@@ -13,6 +13,9 @@ export interface SizeSearch {
   stopped?: string;
 }
 
+/** The `stopped` reason when `evaluateAt` refused a design (a limit was reached). */
+export const LIMIT_REACHED = "a search limit was reached";
+
 /** Probes without improvement of the worst margin before a growing search gives up. */
 const PATIENCE = 3;
 
@@ -90,10 +93,9 @@ export function searchSize(
     return size === undefined ? undefined : plan.indexOf(size);
   };
   const stop = (reason: string): SizeSearch => ({ evaluations, stopped: reason });
-  const limitReason = "a search limit was reached";
   const start = Math.min(plan.maxIndex, Math.max(plan.minIndex, plan.startIndex));
   const first = at(start);
-  if (first === undefined) return stop(limitReason);
+  if (first === undefined) return stop(LIMIT_REACHED);
   let lo: number; // largest index known to fail
   let hi: number; // smallest index known to meet
   let last = first;
@@ -106,7 +108,7 @@ export function searchSize(
       const probe = Math.max(plan.minIndex, Math.min(hi - step, guess ?? Infinity));
       step *= 2;
       const e = at(probe);
-      if (e === undefined) return { best: cache.get(hi)!, evaluations, stopped: limitReason };
+      if (e === undefined) return { best: cache.get(hi)!, evaluations, stopped: LIMIT_REACHED };
       last = e;
       if (!e.meets) {
         lo = probe;
@@ -126,7 +128,7 @@ export function searchSize(
       const probe = Math.min(plan.maxIndex, Math.max(lo + step, guess ?? -Infinity));
       step *= 2;
       const e = at(probe);
-      if (e === undefined) return stop(limitReason);
+      if (e === undefined) return stop(LIMIT_REACHED);
       last = e;
       if (e.meets) {
         hi = probe;
@@ -158,5 +160,5 @@ export function searchSize(
     else lo = probe;
   }
   const best = cache.get(hi)!;
-  return limited ? { best, evaluations, stopped: limitReason } : { best, evaluations };
+  return limited ? { best, evaluations, stopped: LIMIT_REACHED } : { best, evaluations };
 }

@@ -12,7 +12,7 @@ import {
   failedBuild,
 } from "./_evaluate.ts";
 import { METHOD_ORDER, type MethodPlan, planMethod } from "./_methods.ts";
-import { predictedLength, searchSize } from "./_size_search.ts";
+import { LIMIT_REACHED, predictedLength, searchSize } from "./_size_search.ts";
 import { type CostedDesign, implementationCost } from "./implementation_cost.ts";
 import type {
   SearchCandidate,
@@ -251,7 +251,8 @@ export function searchDesigns(spec: FilterSpec, options: SearchOptions): SearchR
       : () => undefined;
     const found = searchSize(plan, evaluateAt, predict);
     candidates.push(
-      candidateOf(plan, found.best, found.evaluations, found.stopped, used >= maxDesignsPerMethod, {
+      candidateOf(plan, found.best, found.evaluations, found.stopped, {
+        maxDesignsPerMethod,
         ctx,
         fs: spec.fs,
         decimation: target.decimation,
@@ -383,8 +384,8 @@ function candidateOf(
   best: Evaluation | undefined,
   evaluations: Evaluation[],
   stopped: string | undefined,
-  outOfDesigns: boolean,
   env: {
+    maxDesignsPerMethod: number;
     ctx: EvaluationContext;
     fs: number;
     decimation: number;
@@ -409,7 +410,7 @@ function candidateOf(
     }
     const c = emptyCandidate(plan, "skipped", "");
     c.status = "fails";
-    c.reason = `no design could be made: ${error ?? "unknown error"}`;
+    c.reason = `no design could be made and checked: ${error ?? "unknown error"}`;
     c.size = evaluations[evaluations.length - 1]!.size;
     c.sizeLabel = plan.sizeLabel(c.size);
     return c;
@@ -434,10 +435,15 @@ function candidateOf(
   if (plan.estimateSource !== undefined) candidate.estimateSource = plan.estimateSource;
   if (built.stages !== undefined) candidate.stages = built.stages;
   if (pick.worst !== undefined) candidate.worst = pick.worst;
-  if (!pick.meets) {
-    const why = stopped ??
-      (outOfDesigns ? "the limit of designs per method was reached" : undefined);
-    if (why !== undefined) candidate.reason = `stopped: ${why}`;
+  const why = stopped !== LIMIT_REACHED
+    ? stopped
+    : env.stoppedBy !== undefined
+    ? `the ${limitName(env.stoppedBy)} was reached`
+    : `the limit of designs per method (${env.maxDesignsPerMethod}) was reached`;
+  if (why !== undefined) {
+    candidate.reason = pick.meets
+      ? `stopped early (${why}): a smaller size may also meet`
+      : `stopped: ${why}`;
   }
   const costed: CostedDesign = pick.quantisedStages ?? pick.quantisedDesign ?? built.design;
   candidate.cost = "stages" in costed

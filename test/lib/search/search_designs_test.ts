@@ -321,6 +321,13 @@ Deno.test("searchDesigns: the design and time limits stop the search and say so"
     few.candidates.some((c) => c.status === "skipped" && /number of designs/.test(c.reason!)),
   );
   assert.ok(few.warnings.some((w) => w.code === "search-limit"));
+  const perMethod = searchDesigns(audioLowpass, {
+    target: TARGET16,
+    methods: ["equiripple"],
+    maxDesignsPerMethod: 1,
+  });
+  assert.equal(only(perMethod).status, "fails");
+  assert.match(only(perMethod).reason!, /limit of designs per method \(1\) was reached/);
   // A clock that advances one second per reading: the limit of 2.5 s allows two designs.
   let t = 0;
   const slow = searchDesigns(audioLowpass, {
