@@ -415,7 +415,12 @@ function candidateOf(
     c.sizeLabel = plan.sizeLabel(c.size);
     return c;
   }
-  pick = completeEvaluation(pick, env.ctx);
+  let unchecked: string | undefined;
+  try {
+    pick = completeEvaluation(pick, env.ctx);
+  } catch (error) {
+    unchecked = `the quantised design could not be checked: ${(error as Error).message}`;
+  }
   const built = pick.built!;
   const candidate: SearchCandidate = {
     method: plan.method,
@@ -424,8 +429,6 @@ function candidateOf(
     size: pick.size,
     sizeLabel: plan.sizeLabel(pick.size, built),
     design: built.design,
-    quantisedDesign: pick.quantisedDesign!,
-    quantisation: pick.quantisation!,
     floatingResults: pick.floating,
     quantisedResults: pick.quantised ?? [],
     failures: pick.failures,
@@ -434,13 +437,16 @@ function candidateOf(
   if (plan.estimate !== undefined) candidate.estimate = plan.estimate;
   if (plan.estimateSource !== undefined) candidate.estimateSource = plan.estimateSource;
   if (built.stages !== undefined) candidate.stages = built.stages;
+  if (pick.quantisedDesign !== undefined) candidate.quantisedDesign = pick.quantisedDesign;
+  if (pick.quantisation !== undefined) candidate.quantisation = pick.quantisation;
   if (pick.worst !== undefined) candidate.worst = pick.worst;
   const why = stopped !== LIMIT_REACHED
     ? stopped
     : env.stoppedBy !== undefined
     ? `the ${limitName(env.stoppedBy)} was reached`
     : `the limit of designs per method (${env.maxDesignsPerMethod}) was reached`;
-  if (why !== undefined) {
+  if (unchecked !== undefined) candidate.reason = unchecked;
+  else if (why !== undefined) {
     candidate.reason = pick.meets
       ? `stopped early (${why}): a smaller size may also meet`
       : `stopped: ${why}`;
