@@ -20,3 +20,4 @@ export * from "./fixed/mod.ts";
 export * from "./export/mod.ts";
 export * from "./iir/mod.ts";
 export * from "./multirate/mod.ts";
+export * from "./search/mod.ts";
