@@ -1,6 +1,14 @@
 import assert from "node:assert/strict";
 import { applyFir, applyFirDirect } from "../../../lib/fir/apply.ts";
+import { whiteNoise } from "../../../lib/signal/noise.ts";
 import { assertClose } from "../../_tolerance.ts";
+
+/** Index of the first element where a and b differ (bit for bit, NaN-aware), or −1. */
+function firstDifference(a: ArrayLike<number>, b: ArrayLike<number>): number {
+  if (a.length !== b.length) return Math.min(a.length, b.length);
+  for (let i = 0; i < a.length; i++) if (!Object.is(a[i], b[i])) return i;
+  return -1;
+}
 
 interface FilterCase {
   taps: number[];
@@ -42,6 +50,32 @@ Deno.test("direct form: every output length and tap count around the 4-way unrol
         assertClose(y[i]!, expected, { abs: 1e-15 }, `N=${taps} L=${length} y[${i}]`);
       }
     }
+  }
+});
+
+Deno.test("the automatic choice follows the measured crossover N ≥ 24 + 50 000/L", () => {
+  const x = whiteNoise(100_000, { seed: 31 });
+  const cases: [number, "direct" | "overlap-add"][] = [
+    [8, "direct"],
+    [24, "direct"],
+    [25, "overlap-add"],
+    [255, "overlap-add"],
+  ];
+  for (const [taps, expected] of cases) {
+    const h = whiteNoise(taps, { seed: taps });
+    // property: each method is deterministic, so the automatic result is bit for bit one of them
+    const chosen = applyFir(h, x, { method: expected });
+    assert.equal(firstDifference(applyFir(h, x), chosen), -1, `${taps} taps on 1e5: ${expected}`);
+  }
+  const short = whiteNoise(1024, { seed: 32 });
+  for (const [taps, expected] of [[72, "direct"], [73, "overlap-add"]] as const) {
+    const h = whiteNoise(taps, { seed: taps });
+    const chosen = applyFir(h, short, { method: expected });
+    assert.equal(
+      firstDifference(applyFir(h, short), chosen),
+      -1,
+      `${taps} taps on 1024: ${expected}`,
+    );
   }
 });
 
