@@ -92,6 +92,10 @@ Deno.test("bad input to applyFir", () => {
     [() => applyFir([1], [1, Number.NaN]), TypeError, "Signal[1] must be a finite number"],
     [() => applyFir([1], [1], { method: "fast" as "auto" }), TypeError, 'got "fast"'],
     [() => applyFirDirect([Number.POSITIVE_INFINITY], [1]), TypeError, "Taps[0]"],
+    // Float64Arrays take a faster check; it must find the same samples.
+    [() => applyFir([1], Float64Array.of(1, 2, 3, 4, -Infinity)), TypeError, "Signal[4]"],
+    [() => applyFir(Float64Array.of(1, Number.NaN), [1]), TypeError, "Taps[1]"],
+    [() => applyFir([1, 2], new Float64Array(99).fill(Infinity, 60)), TypeError, "Signal[60]"],
   ];
   for (const [run, kind, text] of cases) {
     assert.throws(
@@ -101,4 +105,6 @@ Deno.test("bad input to applyFir", () => {
     );
   }
   assert.equal(applyFir([1, 2], []).length, 0);
+  // Large finite values pass the check (x·0 is 0 for them).
+  assert.equal(applyFir([1], Float64Array.of(1e308, -1e308, 5e-324))[0], 1e308);
 });
