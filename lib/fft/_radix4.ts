@@ -108,7 +108,8 @@ export function transformSplit(
   stages(plan, re, im, plan.size);
 }
 
-const h = Math.SQRT1_2;
+/** 1/√2, the size of the real and imaginary parts of W8 = e^(−jπ/4). */
+const rootHalf = Math.SQRT1_2;
 
 /**
  * The first `firstLevels` levels: the input value of complex index p sits at
@@ -150,9 +151,9 @@ function firstPass(
       const u7r = srcRe[b + 7 * g]!, u7i = srcIm[c + 7 * g]!;
       const a3r = u3r + u7r, a3i = u3i + u7i, d3r = u3r - u7r, d3i = u3i - u7i;
       // W8 = (1 − j)/√2, W8² = −j, W8³ = −(1 + j)/√2
-      const b1r = h * (d1r + d1i), b1i = h * (d1i - d1r);
+      const b1r = rootHalf * (d1r + d1i), b1i = rootHalf * (d1i - d1r);
       const b2r = d2i, b2i = -d2r;
-      const b3r = h * (d3i - d3r), b3i = -h * (d3r + d3i);
+      const b3r = rootHalf * (d3i - d3r), b3i = -rootHalf * (d3r + d3i);
       // Even outputs: 4-point DFT of a; odd outputs: 4-point DFT of b.
       let s0r = a0r + a2r, s0i = a0i + a2i, s1r = a0r - a2r, s1i = a0i - a2i;
       let s2r = a1r + a3r, s2i = a1i + a3i, s3r = a1r - a3r, s3i = a1i - a3i;
