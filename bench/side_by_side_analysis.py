@@ -40,14 +40,20 @@ def main():
     x16 = rng.standard_normal(1 << 16)
     x6 = rng.standard_normal(1_000_000)
     h = rng.standard_normal(255)
+    h32 = rng.standard_normal(32)
+    X16 = np.fft.rfft(x16)
     one = np.array([1.0])
     result = {
         "versions": {"numpy": np.__version__, "scipy": scipy.__version__},
         # source: numpy.fft.rfft (pocketfft)
         "realFft65536": timing(lambda: np.fft.rfft(x16), repeats=40, inner=20),
+        # source: numpy.fft.irfft (pocketfft), for information
+        "inverseRealFft65536": timing(lambda: np.fft.irfft(X16, 1 << 16), repeats=40, inner=20),
         # source: scipy.signal.lfilter, a = [1]. SciPy 1.10 hands an FIR (len(a) == 1)
         # to numpy.convolve (a vectorised dot product per output sample).
         "fir255x1e6": timing(lambda: sig.lfilter(h, one, x6), repeats=7),
+        # A short filter, for information: numpy.convolve's cost grows with the taps.
+        "fir32x1e6": timing(lambda: sig.lfilter(h32, one, x6), repeats=7),
         # The same filter with a = [1, 0], which sends lfilter through its own C
         # transposed direct-form II loop (for information; not the target).
         "fir255x1e6GeneralLoop": timing(lambda: sig.lfilter(h, np.array([1.0, 0.0]), x6), repeats=3),

@@ -1,5 +1,5 @@
 import { requireSamples } from "../_validate.ts";
-import { forwardInterleaved, inverseInterleaved } from "./_engine.ts";
+import { forwardComplex, inverseComplex } from "./_engine.ts";
 
 /** A complex sequence held as two equally long arrays of real and imaginary parts. */
 export interface ComplexSamples {
@@ -17,14 +17,16 @@ export interface ComplexInput {
   im?: ArrayLike<number>;
 }
 
-function interleave(input: ComplexInput, what: string): Float64Array {
+/** The validated parts as typed arrays (imaginary parts zero when omitted). */
+function parts(input: ComplexInput, what: string): ComplexSamples {
   if (input === null || typeof input !== "object") {
     throw new TypeError(`${what} must be an object { re, im }, got ${String(input)}`);
   }
   requireSamples(`${what} real part`, input.re);
   const n = input.re.length;
-  const data = new Float64Array(2 * n);
-  for (let i = 0; i < n; i++) data[2 * i] = input.re[i]!;
+  // The engine does not write to its inputs, so typed arrays are used as they are.
+  const re = input.re instanceof Float64Array ? input.re : Float64Array.from(input.re);
+  let im: Float64Array = new Float64Array(n);
   if (input.im !== undefined) {
     requireSamples(`${what} imaginary part`, input.im);
     if (input.im.length !== n) {
@@ -32,17 +34,7 @@ function interleave(input: ComplexInput, what: string): Float64Array {
         `${what} imaginary part must have the real part's length ${n}, got ${input.im.length}`,
       );
     }
-    for (let i = 0; i < n; i++) data[2 * i + 1] = input.im[i]!;
-  }
-  return data;
-}
-
-function split(data: Float64Array, n: number): ComplexSamples {
-  const re = new Float64Array(n);
-  const im = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    re[i] = data[2 * i]!;
-    im[i] = data[2 * i + 1]!;
+    im = input.im instanceof Float64Array ? input.im : Float64Array.from(input.im);
   }
   return { re, im };
 }
@@ -51,16 +43,19 @@ function split(data: Float64Array, n: number): ComplexSamples {
  * Discrete Fourier transform of a complex sequence of any length N:
  * X[k] = Σ_{n=0}^{N−1} x[n] e^(−j2πkn/N), k = 0 … N−1, unscaled.
  *
- * Powers of two use the radix-4 kernel of fft.js; any other length uses
- * Bluestein's chirp-z algorithm (a circular convolution of power-of-two size
- * ≥ 2N − 1), so every length costs O(N log N).
+ * Powers of two use tapsheet's radix-4 kernel (decimation in time, input in
+ * bit-reversed order, a radix-8 first pass when log2 N is odd); any other
+ * length uses Bluestein's chirp-z algorithm (a circular convolution of
+ * power-of-two size ≥ 2N − 1), so every length costs O(N log N).
  *
- * Source: L. I. Bluestein, "A linear filtering approach to the computation of
+ * Source: Oppenheim & Schafer, Discrete-Time Signal Processing, 3rd ed., §9.3
+ * (decimation in time; radix 4 in Problem 9.45); L. I. Bluestein, "A linear filtering approach to the computation of
  * the discrete Fourier transform", IEEE Trans. Audio Electroacoust. 18(4), 1970;
  * Oppenheim & Schafer, Discrete-Time Signal Processing, 3rd ed., §9.6.2 (chirp transform).
  *
  * @param signal `{ re, im }`, N ≥ 1 values each (im may be omitted for a real signal).
- * @returns `{ re, im }` of the N DFT bins; bin k is at frequency k·fs/N.
+ * @returns `{ re, im }` of the N DFT bins; bin k is at frequency k·fs/N. The two
+ *   arrays may share one ArrayBuffer.
  * @throws {TypeError} When the parts differ in length or hold a non-finite value.
  * @throws {RangeError} When the signal is empty.
  * @example
@@ -73,9 +68,8 @@ function split(data: Float64Array, n: number): ComplexSamples {
  * ```
  */
 export function complexFft(signal: ComplexInput): ComplexSamples {
-  const data = interleave(signal, "Signal");
-  const n = signal.re.length;
-  return split(forwardInterleaved(data, n), n);
+  const x = parts(signal, "Signal");
+  return forwardComplex(x.re, x.im);
 }
 
 /**
@@ -86,7 +80,7 @@ export function complexFft(signal: ComplexInput): ComplexSamples {
  * (the DFT pair); Bluestein 1970 for lengths that are not powers of two.
  *
  * @param spectrum `{ re, im }`, N ≥ 1 bins.
- * @returns `{ re, im }`, N samples.
+ * @returns `{ re, im }`, N samples (the two arrays may share one ArrayBuffer).
  * @throws {TypeError} When the parts differ in length or hold a non-finite value.
  * @example
  * ```ts
@@ -96,7 +90,6 @@ export function complexFft(signal: ComplexInput): ComplexSamples {
  * ```
  */
 export function inverseComplexFft(spectrum: ComplexInput): ComplexSamples {
-  const data = interleave(spectrum, "Spectrum");
-  const n = spectrum.re.length;
-  return split(inverseInterleaved(data, n), n);
+  const x = parts(spectrum, "Spectrum");
+  return inverseComplex(x.re, x.im);
 }

@@ -3,7 +3,8 @@
  *
  * Conventions: forward transform X[k] = Σ x[n] e^(−j2πkn/N), no scaling; the
  * inverse carries the 1/N. Bin k lies at frequency k·fs/N Hz. Any length N
- * works: powers of two run on fft.js, others on Bluestein's chirp-z algorithm.
+ * works: powers of two run on tapsheet's radix-4 kernel, others on Bluestein's
+ * chirp-z algorithm.
  * Real transforms return the ⌊N/2⌋ + 1 non-negative-frequency bins.
  *
  * @module

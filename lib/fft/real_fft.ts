@@ -1,5 +1,5 @@
 import { requireInteger, requireSamples } from "../_validate.ts";
-import { inverseInterleaved, realHalf } from "./_engine.ts";
+import { inverseRealHalf, newSplit, realHalf } from "./_engine.ts";
 import type { ComplexSamples } from "./complex_fft.ts";
 
 /** Options for {@link realFft}. */
@@ -17,17 +17,20 @@ export interface RealFftOptions {
  * X[k] = Σ_{n=0}^{N−1} x[n] e^(−j2πkn/N), k = 0 … ⌊N/2⌋ (the other bins are
  * the complex conjugates X[N−k] = X[k]*). Unscaled.
  *
- * Powers of two ≥ 4 run as one fft.js complex transform of N/2 points (even
- * samples as real parts, odd samples as imaginary parts) followed by the
- * even/odd split; other lengths use Bluestein's chirp-z algorithm.
+ * Powers of two ≥ 2 run as one complex transform of N/2 points on tapsheet's
+ * radix-4 kernel (even samples as real parts, odd samples as imaginary parts)
+ * followed by the even/odd split; other lengths use Bluestein's chirp-z
+ * algorithm.
  *
  * Source: Oppenheim & Schafer, Discrete-Time Signal Processing, 3rd ed., §8.6
- * (symmetry of the DFT of a real sequence); Bluestein 1970.
+ * (symmetry of the DFT of a real sequence) and Problem 8.60 (two real
+ * N/2-point sequences in one complex transform); Bluestein 1970.
  *
  * @param signal Real samples, at least 1.
  * @param options Transform length (zero-padding).
  * @returns `{ re, im }` with ⌊N/2⌋ + 1 bins; bin k is at k·fs/N Hz. The DC bin
- *   (and the Nyquist bin for even N) has an imaginary part of exactly 0.
+ *   (and the Nyquist bin for even N) has an imaginary part of exactly 0. The
+ *   two arrays may share one ArrayBuffer.
  * @throws {RangeError} When size is not an integer or is below the signal length.
  * @throws {TypeError} When the signal holds a non-finite value.
  * @example
@@ -53,9 +56,7 @@ export function realFft(signal: ArrayLike<number>, options: RealFftOptions = {})
     input = new Float64Array(size);
     input.set(signal);
   }
-  const bins = Math.floor(size / 2) + 1;
-  const re = new Float64Array(bins);
-  const im = new Float64Array(bins);
+  const { re, im } = newSplit(Math.floor(size / 2) + 1);
   realHalf(input, size, re, im);
   if (typed && !Number.isFinite(re[0]!)) requireSamples("Signal", signal);
   return { re, im };
@@ -67,7 +68,12 @@ export function realFft(signal: ArrayLike<number>, options: RealFftOptions = {})
  * with X[N−k] = X[k]*. The imaginary parts of the DC bin (and of the Nyquist
  * bin when N is even) are ignored, as a real signal cannot have them.
  *
- * Source: Oppenheim & Schafer, Discrete-Time Signal Processing, 3rd ed., §8.6.
+ * Powers of two ≥ 2 undo {@link realFft}'s even/odd split and run one inverse
+ * complex transform of N/2 points; other lengths build the full conjugate-
+ * symmetric spectrum and use Bluestein's algorithm.
+ *
+ * Source: Oppenheim & Schafer, Discrete-Time Signal Processing, 3rd ed., §8.6
+ * and Problem 8.60.
  *
  * @param spectrum `{ re, im }` with ⌊N/2⌋ + 1 bins.
  * @param length Signal length N ≥ 1; must satisfy ⌊N/2⌋ + 1 = number of bins.
@@ -94,19 +100,8 @@ export function inverseRealFft(
       `A real signal of length ${length} needs ${bins} spectrum bins, got ${spectrum.re.length} real and ${spectrum.im.length} imaginary`,
     );
   }
-  const data = new Float64Array(2 * length);
-  for (let k = 0; k < bins; k++) {
-    const re = spectrum.re[k]!;
-    const im = k === 0 || (2 * k === length) ? 0 : spectrum.im[k]!;
-    data[2 * k] = re;
-    data[2 * k + 1] = im;
-    if (k > 0 && 2 * k !== length) {
-      data[2 * (length - k)] = re;
-      data[2 * (length - k) + 1] = -im;
-    }
-  }
-  const full = inverseInterleaved(data, length);
-  const out = new Float64Array(length);
-  for (let i = 0; i < length; i++) out[i] = full[2 * i]!;
-  return out;
+  // The engine does not write to its inputs, so typed arrays are used as they are.
+  const re = spectrum.re instanceof Float64Array ? spectrum.re : Float64Array.from(spectrum.re);
+  const im = spectrum.im instanceof Float64Array ? spectrum.im : Float64Array.from(spectrum.im);
+  return inverseRealHalf(re, im, length);
 }

@@ -1,6 +1,14 @@
 import assert from "node:assert/strict";
 import { applyFir, applyFirDirect } from "../../../lib/fir/apply.ts";
+import { whiteNoise } from "../../../lib/signal/noise.ts";
 import { assertClose } from "../../_tolerance.ts";
+
+/** Index of the first element where a and b differ (bit for bit, NaN-aware), or −1. */
+function firstDifference(a: ArrayLike<number>, b: ArrayLike<number>): number {
+  if (a.length !== b.length) return Math.min(a.length, b.length);
+  for (let i = 0; i < a.length; i++) if (!Object.is(a[i], b[i])) return i;
+  return -1;
+}
 
 interface FilterCase {
   taps: number[];
@@ -45,6 +53,32 @@ Deno.test("direct form: every output length and tap count around the 4-way unrol
   }
 });
 
+Deno.test("the automatic choice follows the measured crossover N ≥ 24 + 50 000/L", () => {
+  const x = whiteNoise(100_000, { seed: 31 });
+  const cases: [number, "direct" | "overlap-add"][] = [
+    [8, "direct"],
+    [24, "direct"],
+    [25, "overlap-add"],
+    [255, "overlap-add"],
+  ];
+  for (const [taps, expected] of cases) {
+    const h = whiteNoise(taps, { seed: taps });
+    // property: each method is deterministic, so the automatic result is bit for bit one of them
+    const chosen = applyFir(h, x, { method: expected });
+    assert.equal(firstDifference(applyFir(h, x), chosen), -1, `${taps} taps on 1e5: ${expected}`);
+  }
+  const short = whiteNoise(1024, { seed: 32 });
+  for (const [taps, expected] of [[72, "direct"], [73, "overlap-add"]] as const) {
+    const h = whiteNoise(taps, { seed: taps });
+    const chosen = applyFir(h, short, { method: expected });
+    assert.equal(
+      firstDifference(applyFir(h, short), chosen),
+      -1,
+      `${taps} taps on 1024: ${expected}`,
+    );
+  }
+});
+
 Deno.test("two-tap average, the textbook case, by every method", () => {
   const x = [2, 4, 6, 8];
   for (const method of ["auto", "direct", "overlap-add"] as const) {
@@ -58,6 +92,10 @@ Deno.test("bad input to applyFir", () => {
     [() => applyFir([1], [1, Number.NaN]), TypeError, "Signal[1] must be a finite number"],
     [() => applyFir([1], [1], { method: "fast" as "auto" }), TypeError, 'got "fast"'],
     [() => applyFirDirect([Number.POSITIVE_INFINITY], [1]), TypeError, "Taps[0]"],
+    // Float64Arrays take a faster check; it must find the same samples.
+    [() => applyFir([1], Float64Array.of(1, 2, 3, 4, -Infinity)), TypeError, "Signal[4]"],
+    [() => applyFir(Float64Array.of(1, Number.NaN), [1]), TypeError, "Taps[1]"],
+    [() => applyFir([1, 2], new Float64Array(99).fill(Infinity, 60)), TypeError, "Signal[60]"],
   ];
   for (const [run, kind, text] of cases) {
     assert.throws(
@@ -67,4 +105,6 @@ Deno.test("bad input to applyFir", () => {
     );
   }
   assert.equal(applyFir([1, 2], []).length, 0);
+  // Large finite values pass the check (x·0 is 0 for them).
+  assert.equal(applyFir([1], Float64Array.of(1e308, -1e308, 5e-324))[0], 1e308);
 });
