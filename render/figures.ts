@@ -405,15 +405,19 @@ function clipToBand(
   return { x: ox, y: oy };
 }
 
-/** Thin each unbroken run of a series on its own, keeping the breaks. */
-function thinRuns(x: number[], y: number[]): { x: number[]; y: (number | null)[] } {
+/** Thin each unbroken run of a series on its own (about `limit` points in all), keeping the breaks. */
+function thinRuns(
+  x: number[],
+  y: number[],
+  limit: number,
+): { x: number[]; y: (number | null)[] } {
   const ox: number[] = [];
   const oy: (number | null)[] = [];
   const finite = y.filter(Number.isFinite).length || 1;
   let start = -1;
   const flush = (end: number) => {
     if (start < 0) return;
-    const share = Math.max(2, Math.round((maxPoints * (end - start)) / finite));
+    const share = Math.max(2, Math.round((limit * (end - start)) / finite));
     const t = thin(x.slice(start, end), y.slice(start, end), share);
     if (ox.length > 0) {
       ox.push((ox[ox.length - 1]! + t.x[0]!) / 2);
@@ -879,7 +883,8 @@ function differenceLayers(
       gd.push(seen(ref) && seen(other) ? other - ref : NaN);
     });
     for (const d of gd) if (Number.isFinite(d)) largest = Math.max(largest, Math.abs(d));
-    const t = thinRuns(gx, gd);
+    // The panel is short: half the points of a full plot draw it as finely.
+    const t = thinRuns(gx, gd, maxPoints / 2);
     for (let i = 0; i < t.x.length; i++) rows.push({ x: t.x[i]!, d: t.y[i]!, series: s.name });
   }
   const half = (largest > 0 ? largest : 0.01 * (hi - lo)) * 1.15;
