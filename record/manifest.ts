@@ -3,7 +3,7 @@
 // it, and the fingerprint that identifies a report.
 import { createHash } from "node:crypto";
 import { join, relative, sep } from "node:path";
-import type { RequirementResult } from "../lib/verify/requirement.ts";
+import type { LimitRelation, WorstCase } from "../lib/verify/requirement.ts";
 import type {
   ExecutionResult,
   ParamValue,
@@ -23,6 +23,22 @@ export const manifestFile = "manifest.json";
  */
 export const derivedFiles: readonly string[] = ["report.pdf"];
 
+/** One row of the requirement table, as the manifest keeps it. */
+export interface ManifestRequirement {
+  id: string;
+  text: string;
+  /** The design the row is about; absent when the requirement was never checked. */
+  design?: string;
+  relation: LimitRelation;
+  limit: number;
+  unit: string;
+  checked: boolean;
+  met: boolean;
+  achieved?: number;
+  margin?: number;
+  worst?: WorstCase;
+}
+
 /** Machine-readable results kept beside the report (no timings: it must be reproducible). */
 export interface Manifest {
   /** The worksheet, as the report names it (see Provenance.worksheetPath). */
@@ -35,12 +51,18 @@ export interface Manifest {
   verdict: Verdict;
   outcome: ExecutionResult["outcome"];
   problem?: SourceProblem;
-  requirements: RequirementResult[];
-  params: Record<string, ParamValue>;
+  /** The requirement table: a row per declared requirement per design checked. */
+  requirements: ManifestRequirement[];
+  /** Every setting the run used (after --set and --settings). */
+  settings: Record<string, ParamValue>;
   provenance: Provenance;
   /** Every file of the report (not the manifest itself), with its SHA-256. */
   files: WrittenFile[];
-  /** SHA-256 over every file's path and hash: the report's identity. */
+  /**
+   * The report's identity: SHA-256 over every file's path and SHA-256, the
+   * page taken with its own fingerprint blanked (see {@link blankPage}), so
+   * the page can print the fingerprint that covers it.
+   */
   fingerprint: string;
   /** SHA-256 of everything the result depends on, to skip unchanged re-runs. */
   inputs: string;
@@ -53,9 +75,30 @@ export function sha256Hex(data: string | Uint8Array): string {
   return createHash("sha256").update(data).digest("hex");
 }
 
-/** The report's fingerprint: SHA-256 over "path sha256\n" of every file, in the given order. */
+/** The page of a report, whose text holds its own fingerprint. */
+export const pageFile = "index.html";
+
+/** Stands for the fingerprint in the page while the fingerprint is computed. */
+export const fingerprintPlaceholder = "\u2063report-fingerprint\u2063";
+
+/** SHA-256 over "path sha256\n" of every file, in the given order. */
 export function fingerprintOf(files: readonly WrittenFile[]): string {
   return sha256Hex(files.map((f) => `${f.path} ${f.sha256}\n`).join(""));
+}
+
+/** The page with its fingerprint put back to the placeholder: what the fingerprint covers. */
+export function blankPage(page: string, fingerprint: string): string {
+  return page.replaceAll(fingerprint, fingerprintPlaceholder);
+}
+
+/**
+ * The fingerprint of a report whose files are `files` (the page listed with
+ * its final SHA-256) and whose blanked page has SHA-256 `blankPageSha256`.
+ */
+export function reportFingerprint(files: readonly WrittenFile[], blankPageSha256: string): string {
+  return fingerprintOf(
+    files.map((f) => (f.path === pageFile ? { ...f, sha256: blankPageSha256 } : f)),
+  );
 }
 
 /** The manifest as written to disk, its digest filled in. */
@@ -65,11 +108,16 @@ export function manifestText(manifest: Omit<Manifest, "digest">): string {
   return JSON.stringify({ ...body, digest }, null, 2) + "\n";
 }
 
-/** True when the manifest's digest matches its text (nobody edited it by hand). */
-export function manifestIntact(manifest: Manifest): boolean {
+/**
+ * True when the manifest's digest matches its text (nobody edited it by hand)
+ * and its fingerprint is the one its files and the given page make.
+ */
+export function manifestIntact(manifest: Manifest, page: string | undefined): boolean {
   const body = { ...manifest, digest: "" };
-  return manifest.digest === sha256Hex(JSON.stringify(body, null, 2)) &&
-    manifest.fingerprint === fingerprintOf(manifest.files);
+  if (manifest.digest !== sha256Hex(JSON.stringify(body, null, 2))) return false;
+  if (page === undefined) return false;
+  const blank = sha256Hex(blankPage(page, manifest.fingerprint));
+  return manifest.fingerprint === reportFingerprint(manifest.files, blank);
 }
 
 /** Read a report folder's manifest; undefined when it is missing or not JSON. */
@@ -104,11 +152,12 @@ export function folderIsIntact(check: FolderCheck): boolean {
 
 /** Hash every file of a report folder and compare with its manifest. */
 export async function checkReportFolder(dir: string, manifest: Manifest): Promise<FolderCheck> {
+  const page = await Deno.readTextFile(join(dir, pageFile)).catch(() => undefined);
   const check: FolderCheck = {
     changed: [],
     missing: [],
     added: [],
-    manifestIntact: manifestIntact(manifest),
+    manifestIntact: manifestIntact(manifest, page),
   };
   const listed = new Set<string>();
   for (const file of manifest.files) {

@@ -2,7 +2,8 @@
 // renderer and to compare and approve. Data only; no stage imports another's
 // internals, they all import these types.
 import type { DesignWarning, MaskSegment } from "../lib/types.ts";
-import type { RequirementResult } from "../lib/verify/requirement.ts";
+import type { LimitRelation, RequirementResult } from "../lib/verify/requirement.ts";
+import type { Requirement } from "../lib/verify/requirements.ts";
 
 /** A parameter value a worksheet may declare in front matter. */
 export type ParamValue = number | string | boolean | number[];
@@ -50,7 +51,35 @@ export interface Worksheet {
   source: string;
   meta: WorksheetMeta;
   params: Record<string, ParamValue>;
+  /** Declared parameter rules (unit, range, description), by name. */
+  paramRules: Record<string, ParamRule>;
+  /** The requirements as declared (limits may still name parameters). */
+  requirements: RequirementDeclaration[];
   parts: (ProsePart | CodePart)[];
+}
+
+/** Declared rules for a parameter: `fs: { value: 8000, min: 1000, max: 96000, unit: Hz }`. */
+export interface ParamRule {
+  min?: number;
+  max?: number;
+  unit?: string;
+  description?: string;
+}
+
+/** A number as front matter writes it: a value, or the name of a number parameter. */
+export type NumberOrParam = number | string;
+
+/** A requirement as front matter writes it, before parameters are resolved. */
+export interface RequirementDeclaration {
+  id: string;
+  text: string;
+  relation: LimitRelation;
+  limit: NumberOrParam;
+  unit: string;
+  kind?: Requirement["kind"];
+  /** Band edges and other fields for the library requirement ("fs/2" allowed for `to`). */
+  fields: Record<string, NumberOrParam>;
+  line: number;
 }
 
 /** A problem in a worksheet, located in its own file. */
@@ -121,10 +150,43 @@ export interface TableExhibit {
   rows: (string | number)[][];
 }
 
+/**
+ * A requirement as the worksheet declares it, once, in its front matter, with
+ * every parameter it names resolved. The requirement table, the checks and
+ * the masks all come from it: a check whose limit disagrees is an error.
+ */
+export interface DeclaredRequirement {
+  /** Identifier in the product's requirement list, unique in the worksheet. */
+  id: string;
+  /** The requirement as written, e.g. "Stopband attenuation from 1.6 kHz". */
+  text: string;
+  relation: LimitRelation;
+  /** The limit, in `unit`. */
+  limit: number;
+  /** The requirement's own unit, e.g. "dB", "ms", "µV" ("" for none). */
+  unit: string;
+  /** The limit as written: a number, or the parameter it comes from. */
+  written: string;
+  /** The library requirement that checks it, when the declaration names one (`check:`). */
+  kind?: Requirement["kind"];
+  /** The library requirement's other fields (band edges, levels), resolved to numbers. */
+  fields: Record<string, number>;
+  /** Front-matter line of the declaration. */
+  line: number;
+}
+
+/** The default name of the design a check is about. */
+export const defaultDesign = "design";
+
 /** A requirement check. */
 export interface CheckExhibit {
   type: "check";
+  /** In the declared requirement's unit, named by its text. */
   result: RequirementResult;
+  /** Which design the check is about, e.g. "floating point", "Q15 coefficients". */
+  design: string;
+  /** The achieved value in a second unit shown beside it (samples beside ms). */
+  equivalent?: { value: number; unit: string };
 }
 
 /** A recorded design choice. */
@@ -141,6 +203,40 @@ export interface CoefficientsExhibit {
   name: string;
   values: number[];
   description?: string;
+  /**
+   * How the values are laid out: a plain list, or second-order sections of
+   * five values each (b0 b1 b2 a1 a2, a0 = 1). @default "list"
+   */
+  layout?: "list" | "sections";
+  /** The integer codes the target holds, one per value (a quantised design). */
+  codes?: number[];
+  /** The fixed-point format of the codes, e.g. "Q1.15". */
+  format?: string;
+}
+
+/** What a design costs to run, as the library's implementationCost reports it. */
+export interface ImplementationCostFigures {
+  structure: string;
+  multipliesPerOutput: number;
+  addsPerOutput: number;
+  multipliesPerSecond: number;
+  stateWords: number;
+  coefficientWords: number;
+  memoryWords: number;
+  latencySamples: number;
+  latencySeconds: number;
+  /** The frequency the latency (group delay) is taken at, Hz; absent for linear phase. */
+  latencyFrequency?: number;
+  inputRate: number;
+  outputRate: number;
+  decimation: number;
+}
+
+/** The implementation cost of one design. */
+export interface CostExhibit {
+  type: "cost";
+  name: string;
+  cost: ImplementationCostFigures;
 }
 
 /** A file the worksheet hands over (C header, CSV…); the runner writes it. */
@@ -170,6 +266,7 @@ export type Exhibit =
   | CheckExhibit
   | ChoiceExhibit
   | CoefficientsExhibit
+  | CostExhibit
   | ExportExhibit
   | WarningExhibit
   | OutputExhibit;
@@ -196,6 +293,8 @@ export type RunOutcome =
 /** Everything the execute stage returns. */
 export interface ExecutionResult {
   outcome: RunOutcome;
+  /** The requirements the run is judged against, as declared, parameters resolved. */
+  requirements: DeclaredRequirement[];
   blocks: BlockResult[];
   /** The failure, located in the worksheet, when outcome is not "completed". */
   problem?: SourceProblem;
@@ -217,9 +316,15 @@ export interface WrittenFile {
 /** Facts that make the run reproducible. */
 export interface Provenance {
   worksheetSha256: string;
-  /** Path of the worksheet as given on the command line. */
+  /** The worksheet as the report names it: its path in the repository, else its file name. */
   worksheetPath: string;
   tapsheetVersion: string;
+  /** SHA-256 over tapsheet's own code (library, record, runner, renderer, lock file). */
+  toolSha256: string;
+  /** Operating system and processor, e.g. "linux x86_64". */
+  platform: string;
+  /** The command that reproduces the run: worksheet, date and every parameter set for it. */
+  command: string;
   denoVersion: string;
   packages: { name: string; version: string }[];
   /** Run date, ISO 8601 (pinned by SOURCE_DATE_EPOCH or --date for reproducible reports). */

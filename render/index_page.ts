@@ -19,7 +19,7 @@ export function reportsIndexHtml(manifests: Manifest[]): string {
       esc(encodeURIComponent(m.name))
     }/index.html">${esc(m.title)}</a></td><td>${esc(m.document)}</td><td>${
       esc(m.revision)
-    }</td><td>${
+    }</td><td class="date">${
       esc(m.provenance.date)
     }</td><td class="num">${met}/${m.requirements.length}</td><td class="verdict">${
       verdictText[m.verdict] ?? esc(m.verdict)
@@ -34,6 +34,7 @@ export function reportsIndexHtml(manifests: Manifest[]): string {
 <title>Filter design reports</title>
 <style>${reportCss("Filter design reports")}
 tr.met td.verdict { color: #1e7a46; font-weight: bold; }
+td.date, td.verdict { white-space: nowrap; }
 tr.not-met td.verdict, tr.incomplete td.verdict { color: #b3261e; font-weight: bold; }
 </style>
 </head>

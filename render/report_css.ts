@@ -42,9 +42,33 @@ td.hash { font-family: 'DejaVu Sans Mono', monospace; font-size: 0.78rem; word-b
 table.requirements tr.met td.verdict { color: ${p.pass}; font-weight: bold; }
 table.requirements tr.not-met td.verdict { color: ${p.fail}; font-weight: bold; }
 table.requirements tr.not-met { background: #fbeceb; }
+table.requirements tr.not-checked td.verdict { color: ${p.incomplete}; font-weight: bold; }
+table.requirements tr.not-checked { background: #fdf5e6; }
+table.requirements .band { display: block; font-size: 0.78rem; color: ${p.muted}; }
+table.requirements .source, .equivalent { display: block; font-size: 0.75rem; color: ${p.muted}; }
+.table-scroll { max-width: 100%; overflow-x: auto; }
+.check .equivalent { display: inline; font-size: inherit; }
+.coverage { margin: 0.5rem 0 0; font-size: 0.9rem; color: ${p.muted}; }
+.hash, dd.hash { font-family: 'DejaVu Sans Mono', monospace; font-size: 0.78rem; word-break: break-all; }
+.note { font-size: 0.85rem; color: ${p.muted}; }
+.figure figcaption .shows { color: ${p.muted}; }
+.listing { margin: 1rem 0 1.4rem; }
+.listing h3 { margin: 0 0 0.2rem; }
+.listing-facts { margin: 0 0 0.4rem; font-size: 0.85rem; color: ${p.muted}; }
+.listing.many table.coefficients { columns: 3 14rem; display: block; }
+.listing.many table.coefficients thead { display: none; }
+.listing.many table.coefficients tbody { display: block; }
+.listing.many table.coefficients tr { display: flex; justify-content: space-between; break-inside: avoid; border-bottom: 1px solid ${p.rule}; }
+.listing.many table.coefficients td { border: 0; padding: 0.1rem 0.4rem; }
+table.sections .code, table.coefficients .code { color: ${p.muted}; font-size: 0.78rem; }
+.code-reference { display: none; }
+pre.listing-code { background: ${p.wash}; border: 1px solid ${p.rule}; border-radius: 3px; margin: 0.4rem 0 1rem; }
+pre.listing-code .line-number { color: ${p.muted}; user-select: none; }
 table.requirements td.verdict { white-space: nowrap; }
 table.requirements { font-size: 0.84rem; }
-table.requirements td:nth-child(2) { min-width: 13rem; }
+table.requirements td:nth-child(2) { min-width: 10rem; }
+table.requirements td.num { white-space: normal; }
+table.requirements td, table.requirements th { padding: 0.3rem 0.35rem; }
 table.requirements td.id { white-space: nowrap; font-family: 'DejaVu Sans Mono', monospace; font-size: 0.82rem; }
 .figure { margin: 1rem 0; text-align: center; break-inside: avoid; }
 .figure img { max-width: 100%; height: auto; }
@@ -79,11 +103,16 @@ a { color: ${p.series[2]}; }
 @media print {
   body { max-width: none; padding: 0; font-size: 10.5pt; }
   h2, h3 { break-after: avoid; }
-  /* Printed coefficients are shown in full even when the listing is folded on screen. */
-  details.coefficients::details-content { content-visibility: visible; display: block; }
-  table, .figure, .check, .problem { break-inside: avoid; }
-  details.code:not([open]) { display: none; }
-  details.coefficients > summary { list-style: none; }
+  /* Long tables may break across pages; their rows and the figures do not. */
+  tr, .figure, .check, .problem, .listing h3 { break-inside: avoid; }
+  table.signoff, table.provenance { break-inside: avoid; }
+  thead { display: table-header-group; }
+  .table-scroll { overflow: visible; }
+  /* The code is printed once, in the appendix, with line numbers; in place a pointer to it. */
+  details.code { display: none; }
+  .code-reference { display: block; font-size: 8.5pt; color: ${p.muted}; margin: 0.2rem 0; }
+  #appendix { break-before: page; }
+  pre.listing-code { white-space: pre-wrap; font-size: 7.5pt; }
   #signoff { break-before: page; }
   .overall { -webkit-print-color-adjust: exact; print-color-adjust: exact; }
   a { color: inherit; text-decoration: none; }

@@ -2,19 +2,28 @@
 // manifest.json. Built in a hidden folder and swapped in whole, so a run that
 // is killed at any moment leaves the previous report intact.
 import { join, resolve, sep } from "node:path";
-import { type Exhibit, type FigureExhibit, isExportName } from "../record/types.ts";
-import { figureToVegaLite } from "./figures.ts";
 import {
-  fingerprintOf,
+  type CoefficientsExhibit,
+  defaultDesign,
+  type ExecutionResult,
+  type Exhibit,
+  type FigureExhibit,
+  isExportName,
+} from "../record/types.ts";
+import { type FigureContext, figureToVegaLite } from "./figures.ts";
+import {
+  fingerprintPlaceholder,
   type Manifest,
   manifestFile,
   manifestText,
+  pageFile,
   readManifest,
+  reportFingerprint,
   sha256Hex,
 } from "../record/manifest.ts";
 import type { Provenance, Verdict, WrittenFile } from "../record/types.ts";
-import { overallVerdict, requirementResults } from "../record/verdict.ts";
-import { reportHtml, type ReportInput } from "./report.ts";
+import { manifestRequirements, overallVerdict, requirementRows } from "../record/verdict.ts";
+import { listingCsv, reportHtml, type ReportInput } from "./report.ts";
 import { vegaLiteToSvg } from "./svg.ts";
 
 /** A short file-name stem from a title: lowercase letters, digits and dashes. */
@@ -36,12 +45,14 @@ export interface WrittenReport {
 }
 
 /** Everything needed to write one report. */
-export type ReportContent = Omit<ReportInput, "figures" | "exports"> & {
-  /** SHA-256 of everything the result depends on, to skip unchanged re-runs. */
-  inputs: string;
-  /** Tells this worksheet apart from others of the same name (Manifest.worksheet). */
-  worksheetId: string;
-};
+export type ReportContent =
+  & Omit<ReportInput, "figures" | "exports" | "listings" | "fingerprint">
+  & {
+    /** SHA-256 of everything the result depends on, to skip unchanged re-runs. */
+    inputs: string;
+    /** Tells this worksheet apart from others of the same name (Manifest.worksheet). */
+    worksheetId: string;
+  };
 
 /**
  * Render and write the report for one run into `<outDir>/<name>/`.
@@ -74,13 +85,24 @@ export async function writeReport(
         if (exhibit.type !== "figure") continue;
         count++;
         const stem = `figures/${String(count).padStart(2, "0")}-${slug(exhibit.title)}`;
-        const spec = figureToVegaLite(exhibit as FigureExhibit);
+        const spec = figureToVegaLite(exhibit, figureContext(exhibit, content.execution));
         const specText = JSON.stringify(spec, null, 1) + "\n";
         await write(`${stem}.vl.json`, specText);
         // A figure whose specification is unchanged is not rendered again.
         const svg = previous.get(specText) ?? (await vegaLiteToSvg(spec));
         figures.set(exhibit, await write(`${stem}.svg`, svg, exhibit.title));
       }
+    }
+
+    // Every coefficient listing is also a CSV file of the report: its SHA-256 is the listing's.
+    const listings = new Map<Exhibit, WrittenFile>();
+    const listed = content.execution.blocks.flatMap((b) =>
+      b.exhibits.filter((e): e is CoefficientsExhibit => e.type === "coefficients")
+    );
+    if (listed.length > 0) await Deno.mkdir(join(stage, "listings"));
+    for (const [i, exhibit] of listed.entries()) {
+      const path = `listings/${String(i + 1).padStart(2, "0")}-${slug(exhibit.name)}.csv`;
+      listings.set(exhibit, await write(path, listingCsv(exhibit), exhibit.name));
     }
 
     const exports: WrittenFile[] = [];
@@ -104,10 +126,18 @@ export async function writeReport(
       }
     }
 
-    const html = reportHtml({ ...content, figures, exports });
-    await write("index.html", html);
+    // The page shows the fingerprint that covers it: hashed with a placeholder, then filled in.
+    const page = reportHtml({
+      ...content,
+      figures,
+      listings,
+      exports,
+      fingerprint: fingerprintPlaceholder,
+    });
+    const blank = sha256Hex(page);
+    const fingerprint = reportFingerprint([...files, { path: pageFile, sha256: blank }], blank);
+    await write(pageFile, page.replaceAll(fingerprintPlaceholder, fingerprint));
     const verdict = overallVerdict(content.execution);
-    const fingerprint = fingerprintOf(files);
     const manifest = manifestOf(name, content, verdict, files, fingerprint);
     await Deno.writeTextFile(join(stage, manifestFile), manifestText(manifest));
 
@@ -125,6 +155,34 @@ export async function writeReport(
   }
 }
 
+/** Kinds of figure whose x axis is frequency in Hz. */
+const frequencyKinds: readonly FigureExhibit["kind"][] = [
+  "magnitude",
+  "passband",
+  "phase",
+  "groupDelay",
+  "spectrum",
+  "quantised",
+];
+
+/**
+ * What a figure marks besides its data: the worst point of every checked
+ * requirement its mask is labelled with (frequency figures, worst case in Hz).
+ */
+export function figureContext(figure: FigureExhibit, execution: ExecutionResult): FigureContext {
+  if (!frequencyKinds.includes(figure.kind)) return {};
+  const ids = new Set((figure.mask ?? []).flatMap((m) => (m.label ? [m.label] : [])));
+  const worst = requirementRows(execution).flatMap(({ requirement, check }) => {
+    const w = check?.result.worst;
+    if (!ids.has(requirement.id) || w === undefined || w.unit !== "Hz") return [];
+    const id = check!.design === defaultDesign
+      ? requirement.id
+      : `${requirement.id} (${check!.design})`;
+    return [{ id, at: w.at, met: check!.result.met }];
+  });
+  return worst.length > 0 ? { worst } : {};
+}
+
 /** SVG of each figure in an existing report, keyed by its vega-lite specification text. */
 async function previousFigures(
   dir: string,
@@ -135,13 +193,17 @@ async function previousFigures(
     // Reuse only figures drawn by the same package versions.
     const old = await readManifest(dir);
     if (!old || JSON.stringify(old.provenance.packages) !== JSON.stringify(packages)) return out;
+    // Only files still as the old manifest lists them: an edited figure is drawn anew.
+    const listed = new Map(old.files.map((f) => [f.path, f.sha256]));
     for await (const e of Deno.readDir(join(dir, "figures"))) {
       if (!e.name.endsWith(".vl.json")) continue;
-      const spec = await Deno.readTextFile(join(dir, "figures", e.name));
-      const svg = await Deno.readTextFile(
-        join(dir, "figures", e.name.replace(/\.vl\.json$/, ".svg")),
-      );
-      out.set(spec, svg);
+      const specPath = `figures/${e.name}`;
+      const svgPath = specPath.replace(/\.vl\.json$/, ".svg");
+      const spec = await Deno.readTextFile(join(dir, specPath));
+      const svg = await Deno.readTextFile(join(dir, svgPath));
+      if (listed.get(specPath) === sha256Hex(spec) && listed.get(svgPath) === sha256Hex(svg)) {
+        out.set(spec, svg);
+      }
     }
   } catch {
     // no previous report, or an incomplete one: render everything
@@ -186,8 +248,8 @@ function manifestOf(
     revision: content.worksheet.meta.revision,
     verdict,
     outcome: content.execution.outcome,
-    requirements: requirementResults(content.execution),
-    params: content.params,
+    requirements: manifestRequirements(content.execution),
+    settings: content.params,
     provenance: content.provenance,
     files,
     fingerprint,

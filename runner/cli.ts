@@ -49,6 +49,9 @@ async function collect(paths: string[]): Promise<string[]> {
   return out;
 }
 
+/** Options an earlier version used, with the name they have now. */
+const renamedOptions: Record<string, string> = { "--params": "--settings" };
+
 interface Parsed {
   positional: string[];
   options: Map<string, string[]>;
@@ -73,6 +76,9 @@ function parseArgs(
       : arg.startsWith("--set=")
       ? ["--set", arg.slice(6)]
       : [arg, undefined];
+    if (name in renamedOptions) {
+      throw new UsageError(messages.cli.renamedOption(name, renamedOptions[name]!));
+    }
     if (flags.includes(name)) {
       options.set(name, ["true"]);
     } else if (valued.includes(name)) {
@@ -93,7 +99,7 @@ function positiveNumber(name: string, text: string | undefined): number | undefi
   return v;
 }
 
-/** Parameter overrides from a YAML or JSON file of name: value pairs. */
+/** Settings from a YAML or JSON file of name: value pairs. */
 async function readParamsFile(path: string): Promise<Record<string, unknown>> {
   let text: string;
   try {
@@ -153,7 +159,7 @@ async function commandRun(args: string[]): Promise<number> {
   const { positional, options } = parseArgs(
     "run",
     args,
-    ["--out", "--set", "--params", "--timeout", "--memory", "--date", "--json"],
+    ["--out", "--set", "--settings", "--timeout", "--memory", "--date", "--json"],
     ["--help", "--pdf", "--force", "--exit-zero"],
   );
   if (options.has("--help")) {
@@ -162,7 +168,7 @@ async function commandRun(args: string[]): Promise<number> {
   }
   const date = options.get("--date")?.at(-1);
   if (date !== undefined) checkedDate(date);
-  const paramsFile = options.get("--params")?.at(-1);
+  const paramsFile = options.get("--settings")?.at(-1);
   const paramsFromFile = paramsFile === undefined ? {} : await readParamsFile(paramsFile);
   const outDir = options.get("--out")?.at(-1) ?? "reports";
   await checkOutFolder(outDir);

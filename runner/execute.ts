@@ -8,12 +8,14 @@ import { dirname, join, relative, resolve, sep } from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
 import { assembleWorksheet } from "./assemble.ts";
 import { checkedExhibit, ProtocolError } from "./exhibit_rules.ts";
-import { decodeNumbers } from "./harness_protocol.ts";
+import { decodeNumbers, encodeNumbers } from "./harness_protocol.ts";
 import type { HarnessInput, HarnessMessage } from "./harness_protocol.ts";
 import { messages } from "./messages.ts";
+import { disagreement, RequirementError, resolveRequirements } from "./requirements.ts";
 import type {
   BlockResult,
   CodePart,
+  DeclaredRequirement,
   ExecutionResult,
   Exhibit,
   ParamValue,
@@ -96,12 +98,20 @@ export async function executeWorksheet(
     status: "not run",
     exhibits: [],
   }));
+  let requirements: DeclaredRequirement[] = [];
   const rejected = (problem: SourceProblem): ExecutionResult => ({
     outcome: "rejected",
+    requirements,
     blocks,
     problem,
     durationMs: performance.now() - started,
   });
+  try {
+    requirements = resolveRequirements(worksheet.requirements, params);
+  } catch (error) {
+    if (!(error instanceof RequirementError)) throw error;
+    return rejected({ path: worksheet.path, line: 1, message: error.message });
+  }
 
   const assembly = assembleWorksheet(worksheet);
   if (assembly.problems.length > 0) return rejected(assembly.problems[0]!);
@@ -115,11 +125,12 @@ export async function executeWorksheet(
     const child = startChild(tempDir, access, limits, options.libraryModule);
     activeRuns.set(child, tempDir);
     try {
-      const session = new ProtocolSession(blocks);
+      const session = new ProtocolSession(blocks, requirements);
       const input: HarnessInput = {
         moduleUrl,
         hostUrl: pathToFileURL(join(projectRoot, "runner", "worksheet_host.ts")).href,
         params,
+        requirements,
         nonce: session.nonce,
         timeoutSeconds: limits.timeoutSeconds,
       };
@@ -292,8 +303,10 @@ class ProtocolSession {
   done = false;
   error: Extract<HarnessMessage, { kind: "error" }> | undefined;
   violation: string | undefined;
+  /** Requirement id and design of every check so far. */
+  private checked = new Set<string>();
 
-  constructor(readonly blocks: BlockResult[]) {}
+  constructor(readonly blocks: BlockResult[], readonly requirements: DeclaredRequirement[]) {}
 
   line(line: string): void {
     if (!line.startsWith(this.nonce)) {
@@ -314,6 +327,23 @@ class ProtocolSession {
     if (block) block.exhibits.push(exhibit);
   }
 
+  /**
+   * A check stands only for a declared requirement, with its limit as
+   * declared, once per design; it is named by the declaration's text.
+   */
+  private judge(exhibit: Extract<Exhibit, { type: "check" }>): void {
+    const d = this.requirements.find((r) => r.id === exhibit.result.id);
+    if (d === undefined) {
+      throw new ProtocolError(`a check of '${exhibit.result.id}', which is not declared`);
+    }
+    const problem = disagreement(exhibit.result, d);
+    if (problem !== undefined) throw new ProtocolError(problem);
+    const key = `${d.id}\u0000${exhibit.design}`;
+    if (this.checked.has(key)) throw new ProtocolError(`${d.id} checked twice for one design`);
+    this.checked.add(key);
+    exhibit.result.name = d.text;
+  }
+
   private accept(message: HarnessMessage): void {
     if (this.done || this.error) throw new ProtocolError("a message after the end of the run");
     switch (message?.kind) {
@@ -326,10 +356,13 @@ class ProtocolSession {
         this.current = message.index;
         this.blocks[this.current]!.status = "ok";
         return;
-      case "exhibit":
+      case "exhibit": {
         if (this.current < 0) throw new ProtocolError("an exhibit before the first block");
-        this.attach(checkedExhibit(message.exhibit));
+        const exhibit = checkedExhibit(message.exhibit);
+        if (exhibit.type === "check") this.judge(exhibit);
+        this.attach(exhibit);
         return;
+      }
       case "error":
         this.error = {
           kind: "error",
@@ -417,7 +450,8 @@ async function superviseChild(
     readLines(child.stderr, (l) => {
       if (stderr.length < 200) stderr.push(l);
     }),
-    writer.write(new TextEncoder().encode(JSON.stringify(input) + "\n")).catch(() => {}),
+    writer.write(new TextEncoder().encode(JSON.stringify(input, encodeNumbers) + "\n"))
+      .catch(() => {}),
   ]);
   clearTimeout(timer);
   clearInterval(watchdog);
@@ -486,7 +520,12 @@ function conclude(
       else if (failing && b.index > failing.index) b.status = "not run";
     }
   }
-  const result: ExecutionResult = { outcome, blocks, durationMs: performance.now() - started };
+  const result: ExecutionResult = {
+    outcome,
+    requirements: session.requirements,
+    blocks,
+    durationMs: performance.now() - started,
+  };
   if (problem !== undefined) result.problem = problem;
   return result;
 }

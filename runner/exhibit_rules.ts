@@ -158,8 +158,21 @@ export function checkedExhibit(value: unknown): Exhibit {
       });
       return { type: "table", title: text(e.title, "table.title", 1000), columns: heads, rows };
     }
-    case "check":
-      return { type: "check", result: checkedRequirement(e.result) };
+    case "check": {
+      const out: Exhibit = {
+        type: "check",
+        result: checkedRequirement(e.result),
+        design: text(e.design, "check.design", 200),
+      };
+      if (e.equivalent !== undefined) {
+        const q = record(e.equivalent, "check.equivalent");
+        out.equivalent = {
+          value: number(q.value, "check.equivalent.value"),
+          unit: text(q.unit, "check.equivalent.unit", 100),
+        };
+      }
+      return out;
+    }
     case "choice":
       return {
         type: "choice",
@@ -174,6 +187,45 @@ export function checkedExhibit(value: unknown): Exhibit {
         values: numbers(e.values, "coefficients.values"),
       };
       put(out, "description", optionalText(e.description, "coefficients.description"));
+      if (e.layout !== undefined) {
+        out.layout = oneOf(e.layout, ["list", "sections"] as const, "coefficients.layout");
+        if (out.layout === "sections" && out.values.length % 5 !== 0) {
+          fail("coefficients: sections need five values each");
+        }
+      }
+      if (e.codes !== undefined) {
+        out.codes = numbers(e.codes, "coefficients.codes");
+        if (out.codes.length !== out.values.length || !out.codes.every(Number.isInteger)) {
+          fail("coefficients.codes: not one integer per value");
+        }
+      }
+      put(out, "format", optionalText(e.format, "coefficients.format"));
+      return out;
+    }
+    case "cost": {
+      const c = record(e.cost, "cost");
+      const n = (k: string) => finite(c[k], `cost.${k}`);
+      const out: Exhibit = {
+        type: "cost",
+        name: text(e.name, "cost.name", 1000),
+        cost: {
+          structure: text(c.structure, "cost.structure", 1000),
+          multipliesPerOutput: n("multipliesPerOutput"),
+          addsPerOutput: n("addsPerOutput"),
+          multipliesPerSecond: n("multipliesPerSecond"),
+          stateWords: n("stateWords"),
+          coefficientWords: n("coefficientWords"),
+          memoryWords: n("memoryWords"),
+          latencySamples: n("latencySamples"),
+          latencySeconds: n("latencySeconds"),
+          inputRate: n("inputRate"),
+          outputRate: n("outputRate"),
+          decimation: n("decimation"),
+        },
+      };
+      if (c.latencyFrequency !== undefined && c.latencyFrequency !== null) {
+        out.cost.latencyFrequency = finite(c.latencyFrequency, "cost.latencyFrequency");
+      }
       return out;
     }
     case "export": {

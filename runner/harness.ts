@@ -6,6 +6,7 @@
 // away (standard input closes) or its own time is up, so a runaway worksheet
 // cannot outlive the runner. No worksheet code ever runs on this thread.
 import {
+  decodeNumbers,
   encodeNumbers,
   type HarnessInput,
   type HarnessMessage,
@@ -27,7 +28,7 @@ async function readInput(): Promise<HarnessInput> {
     if (done) Deno.exit(exitCodes.parentGone);
     text += decoder.decode(value, { stream: true });
   }
-  return JSON.parse(text.slice(0, text.indexOf("\n"))) as HarnessInput;
+  return JSON.parse(text.slice(0, text.indexOf("\n")), decodeNumbers) as HarnessInput;
 }
 
 const input = await readInput();
@@ -76,5 +77,10 @@ worker.onerror = (event) => {
   });
   Deno.exit(exitCodes.failed);
 };
-const start: HostStart = { port: port2, moduleUrl: input.moduleUrl, params: input.params };
+const start: HostStart = {
+  port: port2,
+  moduleUrl: input.moduleUrl,
+  params: input.params,
+  requirements: input.requirements,
+};
 worker.postMessage(start, [port2]);

@@ -11,7 +11,7 @@
 // the nonce or the child's standard input, and the port it cannot reach is the
 // only way into the main thread. Whatever the worksheet prints itself arrives
 // without the nonce and is shown as output, never taken as a message.
-import type { Exhibit, ParamValue } from "../record/types.ts";
+import type { DeclaredRequirement, Exhibit, ParamValue } from "../record/types.ts";
 
 /** A message about the run: a block started, an exhibit, an error, or the end. */
 export type HarnessMessage =
@@ -41,6 +41,7 @@ export interface HarnessInput {
   /** URL of the worker's entry point, runner/worksheet_host.ts. */
   hostUrl: string;
   params: Record<string, ParamValue>;
+  requirements: DeclaredRequirement[];
   /** Prefix of every protocol line, so stray output cannot pose as one. */
   nonce: string;
   /** The child's own backstop: it ends itself this long after starting. */
@@ -52,6 +53,7 @@ export interface HostStart {
   port: MessagePort;
   moduleUrl: string;
   params: Record<string, ParamValue>;
+  requirements: DeclaredRequirement[];
 }
 
 /** The name of the function the worker defines; called on each fence line. */

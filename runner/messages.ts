@@ -10,18 +10,36 @@ export const messages = {
     unknownKey: (key: string, suggestion: string | undefined) =>
       `Unknown front-matter key '${key}'${
         suggestion ? ` (did you mean '${suggestion}'?)` : ""
-      }; front matter holds title, document, revision, params and signoff`,
+      }; front matter holds title, document, revision, settings, requirements and signoff`,
+    requirementsShape:
+      "'requirements' must be a list, each item a mapping with id, text, atMost or atLeast, and unit",
+    requirementKey: (key: string, suggestion: string | undefined) =>
+      `Unknown requirement field '${key}'${
+        suggestion ? ` (did you mean '${suggestion}'?)` : ""
+      }; a requirement has id, text, atMost or atLeast, unit, and optionally check with its band fields`,
+    requirementText: (key: string) => `Each requirement needs '${key}:' as text`,
+    duplicateRequirement: (id: string, line: number) =>
+      `Requirement id '${id}' is declared twice (first on line ${line}); ids must be unique`,
+    requirementNumber: (id: string, key: string, found: string) =>
+      `Requirement ${id}: '${key}' must be a number or the name of a number setting, got '${found}'`,
+    requirementLimit: (id: string) =>
+      `Requirement ${id} needs exactly one limit: 'atMost:' or 'atLeast:'`,
+    requirementKind: (kind: string, suggestion: string | undefined) =>
+      `Unknown requirement check '${kind}'${suggestion ? ` (did you mean '${suggestion}'?)` : ""}`,
+    requirementRule: (id: string, problem: string) => `Requirement ${id}: ${problem}`,
     missingField: (key: string) => `Front matter must have '${key}:'`,
     fieldNotText: (key: string) => `Front matter '${key}' must be text or a number`,
     signoffShape: "'signoff' must be a list of roles, each a text or { role: …, name: … }",
-    paramsShape: "'params' must be a mapping of parameter names to values",
+    paramsShape: "'settings' must be a mapping of setting names to values",
+    renamedKey: (old: string, now: string) =>
+      `Front matter '${old}:' is now called '${now}:'; rename the key (the values stay as they are)`,
     paramName: (name: string) =>
-      `Parameter name '${name}' must start with a letter or '_' and hold only letters, digits and '_'`,
+      `Setting name '${name}' must start with a letter or '_' and hold only letters, digits and '_'`,
     paramDeclaration: (name: string) =>
-      `Parameter '${name}' is a mapping, so it must declare 'value:' (and may declare min, max, unit, description)`,
-    paramRule: (name: string, key: string) => `Parameter '${name}': '${key}' must be a number`,
+      `Setting '${name}' is a mapping, so it must declare 'value:' (and may declare min, max, unit, description)`,
+    paramRule: (name: string, key: string) => `Setting '${name}': '${key}' must be a number`,
     paramType: (name: string, found: string) =>
-      `Parameter '${name}' must be a number, text, true/false or a list of numbers, got ${found}`,
+      `Setting '${name}' must be a number, text, true/false or a list of numbers, got ${found}`,
     unclosedFence: "This ```ts block is never closed: add a closing ``` line",
   },
   assemble: {
@@ -33,12 +51,12 @@ export const messages = {
   },
   params: {
     unknown: (name: string, known: string[]) =>
-      `Unknown parameter '${name}'; this worksheet declares: ${known.join(", ") || "none"}`,
-    badSetting: (text: string) => `A parameter setting must look like name=value, got '${text}'`,
+      `Unknown setting '${name}'; this worksheet declares: ${known.join(", ") || "none"}`,
+    badSetting: (text: string) => `A setting must look like name=value, got '${text}'`,
     wrongType: (name: string, expected: string, got: string) =>
-      `Parameter '${name}' must be ${expected}, got '${got}'`,
+      `Setting '${name}' must be ${expected}, got '${got}'`,
     outOfRange: (name: string, value: number, min?: number, max?: number, unit = "") =>
-      `Parameter '${name}' must be ${
+      `Setting '${name}' must be ${
         min !== undefined && max !== undefined
           ? `between ${min}${unit} and ${max}${unit}`
           : min !== undefined
@@ -100,8 +118,8 @@ figures, exports and manifest.json.
 
 Options:
   --out DIR            output folder (default: reports)
-  --set name=value     override a front-matter parameter (repeatable)
-  --params FILE        read parameter overrides from a JSON or YAML file
+  --set name=value     change a setting declared in front matter (repeatable)
+  --settings FILE      read settings from a YAML or JSON file of name: value pairs
   --timeout SECONDS    wall-clock limit per worksheet (default: 60)
   --memory MB          memory limit per worksheet (default: 1024)
   --date YYYY-MM-DD    date printed in the report (default: SOURCE_DATE_EPOCH, else today)
@@ -136,7 +154,7 @@ Templates: ${templates.join(", ") || "none"}`,
 Proves that the worksheet's report is exactly what the worksheet produces:
   1. every file of the report against the SHA-256 its manifest lists, naming
      each file that changed, is missing or was added;
-  2. a fresh run with the parameters and date recorded in the report, compared
+  2. a fresh run with the settings and date recorded in the report, compared
      byte for byte with every file of the report, the manifest included.
 report.pdf (from run --pdf) is a printed copy and is not checked.
 Exit code 0 when both hold, 1 when either does not, 2 on error.`,
@@ -163,7 +181,9 @@ Exit code 0 when both hold, 1 when either does not, 2 on error.`,
     watchedFileGone: (path: string) => `${path} is gone; waiting for it to come back`,
     interrupted: (signal: string) =>
       `tapsheet: stopped by ${signal}; no report was left half-written`,
-    badParamsFile: (path: string) => `Parameters file ${path} must hold name: value pairs`,
+    badParamsFile: (path: string) => `Settings file ${path} must hold name: value pairs`,
+    renamedOption: (old: string, now: string) =>
+      `Option '${old}' is now called '${now}'. Run 'deno task tapsheet run --help'.`,
     rerunBecause: (why: string) => `re-run: ${why}`,
     watchUsage:
       `deno task tapsheet watch <worksheet.md> [--out DIR] [--set name=value]... [--date YYYY-MM-DD]
@@ -188,9 +208,9 @@ Stop with Ctrl-C.`,
     notMarkdown: (path: string) =>
       `${path} is not a worksheet: worksheets are Markdown files (*.md)`,
     outIsFile: (path: string) => `--out must name a folder for the reports, but ${path} is a file`,
-    paramsFileMissing: (path: string) => `Parameters file ${path} does not exist or cannot be read`,
+    paramsFileMissing: (path: string) => `Settings file ${path} does not exist or cannot be read`,
     paramsFileYaml: (path: string, detail: string) =>
-      `Parameters file ${path} is not valid YAML or JSON: ${detail}`,
+      `Settings file ${path} is not valid YAML or JSON: ${detail}`,
     badNumber: (name: string, text: string) =>
       `Option '${name}' needs a positive number, got '${text}'`,
     badDate: (text: string) => `--date needs a real calendar date as YYYY-MM-DD, got '${text}'`,

@@ -1,7 +1,6 @@
 // Parameter overrides from the command line and parameter files, checked
 // against the worksheet's declarations.
-import type { ParamRule } from "./parse.ts";
-import type { ParamValue } from "../record/types.ts";
+import type { ParamRule, ParamValue } from "../record/types.ts";
 import { messages } from "./messages.ts";
 
 /** A problem with a parameter setting (the CLI reports it and exits with 2). */

@@ -4,14 +4,18 @@ import { isMap, isScalar, isSeq, LineCounter, parseDocument } from "yaml";
 import type { Node as YamlNode, YAMLMap } from "yaml";
 import type {
   CodePart,
+  NumberOrParam,
+  ParamRule,
   ParamValue,
   ProsePart,
+  RequirementDeclaration,
   SignoffRole,
   SourceProblem,
   Worksheet,
   WorksheetMeta,
 } from "../record/types.ts";
 import { messages } from "./messages.ts";
+import { declarationProblem, kindRules, requirementFields } from "./requirements.ts";
 
 /** Thrown when a worksheet cannot be parsed; carries the file and line. */
 export class WorksheetError extends Error {
@@ -21,17 +25,10 @@ export class WorksheetError extends Error {
   }
 }
 
-/** Declared rules for a parameter: `fs: { value: 8000, min: 1000, max: 96000, unit: Hz }`. */
-export interface ParamRule {
-  min?: number;
-  max?: number;
-  unit?: string;
-  description?: string;
-}
+export type { ParamRule } from "../record/types.ts";
 
-/** A parsed worksheet plus the declared rules of its parameters. */
+/** A parsed worksheet plus where each parameter is declared. */
 export interface ParsedWorksheet extends Worksheet {
-  paramRules: Record<string, ParamRule>;
   /** Line of each parameter's declaration, for error messages. */
   paramLines: Record<string, number>;
 }
@@ -81,6 +78,9 @@ export function parseWorksheet(path: string, text: string): ParsedWorksheet {
 
   for (const pair of (root as YAMLMap).items) {
     const key = String((pair.key as { value?: unknown } | null)?.value ?? pair.key);
+    if (key in renamedKeys) {
+      fail(lineOf(pair.key), messages.parse.renamedKey(key, renamedKeys[key]!));
+    }
     if (!frontMatterKeys.includes(key)) {
       fail(lineOf(pair.key), messages.parse.unknownKey(key, closest(key, frontMatterKeys)));
     }
@@ -128,7 +128,7 @@ export function parseWorksheet(path: string, text: string): ParsedWorksheet {
   const params: Record<string, ParamValue> = {};
   const paramRules: Record<string, ParamRule> = {};
   const paramLines: Record<string, number> = {};
-  const paramsNode = field("params") as YamlNode | undefined;
+  const paramsNode = field("settings") as YamlNode | undefined;
   if (paramsNode !== undefined) {
     if (!isMap(paramsNode)) fail(lineOf(paramsNode), messages.parse.paramsShape);
     for (const pair of (paramsNode as { items: { key: unknown; value: unknown }[] }).items) {
@@ -157,6 +157,13 @@ export function parseWorksheet(path: string, text: string): ParsedWorksheet {
       params[name] = value as ParamValue;
     }
   }
+  const requirements = parseRequirements(
+    field("requirements") as YamlNode | undefined,
+    params,
+    lineOf,
+    fail,
+  );
+
   // Body: walk marked's top-level tokens, whose raw strings add up to the source.
   const bodyStart = close + 1; // 0-based index of the first body line
   const body = lines.slice(bodyStart).join("\n");
@@ -203,7 +210,89 @@ export function parseWorksheet(path: string, text: string): ParsedWorksheet {
     line += tokenLines;
   }
   flushProse(line);
-  return { path, source, meta, params, paramRules, paramLines, parts };
+  return { path, source, meta, params, paramRules, paramLines, requirements, parts };
+}
+
+const requirementKeys = ["id", "text", "atMost", "atLeast", "unit", "check", ...requirementFields];
+
+/**
+ * The `requirements:` list: each item declares one requirement once, with an
+ * id, the text as written, one limit (`atMost:` or `atLeast:`, a number or the
+ * name of a number parameter), its unit, and optionally `check:` naming the
+ * library requirement kind that checks it, with that kind's band fields.
+ */
+function parseRequirements(
+  node: YamlNode | undefined,
+  params: Record<string, ParamValue>,
+  lineOf: (node: unknown) => number,
+  fail: (line: number, message: string) => never,
+): RequirementDeclaration[] {
+  if (node === undefined) return [];
+  if (!isSeq(node)) fail(lineOf(node), messages.parse.requirementsShape);
+  const out: RequirementDeclaration[] = [];
+  const seen = new Map<string, number>();
+  for (const item of (node as { items: unknown[] }).items) {
+    const line = lineOf(item);
+    if (!isMap(item)) fail(line, messages.parse.requirementsShape);
+    const entry = new Map<string, { value: unknown; line: number }>();
+    for (const pair of (item as YAMLMap).items) {
+      const key = String((pair.key as { value?: unknown } | null)?.value ?? pair.key);
+      const keyLine = lineOf(pair.key);
+      if (!requirementKeys.includes(key)) {
+        fail(keyLine, messages.parse.requirementKey(key, closest(key, requirementKeys)));
+      }
+      const value = (pair.value as { toJSON?: () => unknown } | null)?.toJSON?.() ?? null;
+      entry.set(key, { value, line: keyLine });
+    }
+    const text = (key: string): string => {
+      const v = entry.get(key)?.value;
+      if (typeof v !== "string" && typeof v !== "number") {
+        fail(entry.get(key)?.line ?? line, messages.parse.requirementText(key));
+      }
+      return String(v);
+    };
+    const id = text("id");
+    if (seen.has(id)) {
+      fail(entry.get("id")!.line, messages.parse.duplicateRequirement(id, seen.get(id)!));
+    }
+    seen.set(id, entry.get("id")!.line);
+    const numberOrParam = (key: string, allowHalfRate = false): NumberOrParam => {
+      const { value, line: at } = entry.get(key)!;
+      if (typeof value === "number" && Number.isFinite(value)) return value;
+      if (allowHalfRate && value === "fs/2") return value;
+      if (typeof value === "string" && typeof params[value] === "number") return value;
+      return fail(at, messages.parse.requirementNumber(id, key, String(value)));
+    };
+    const limits = ["atMost", "atLeast"].filter((k) => entry.has(k));
+    if (limits.length !== 1) fail(line, messages.parse.requirementLimit(id));
+    const relation = limits[0] as "atMost" | "atLeast";
+    const declaration: RequirementDeclaration = {
+      id,
+      text: text("text"),
+      relation,
+      limit: numberOrParam(relation),
+      unit: entry.has("unit") ? text("unit") : "",
+      fields: {},
+      line,
+    };
+    if (entry.has("check")) {
+      const kind = text("check");
+      if (!(kind in kindRules)) {
+        fail(
+          entry.get("check")!.line,
+          messages.parse.requirementKind(kind, closest(kind, Object.keys(kindRules))),
+        );
+      }
+      declaration.kind = kind as keyof typeof kindRules;
+    }
+    for (const f of requirementFields) {
+      if (entry.has(f)) declaration.fields[f] = numberOrParam(f, f === "to");
+    }
+    const problem = declarationProblem(declaration);
+    if (problem !== undefined) fail(line, messages.parse.requirementRule(id, problem));
+    out.push(declaration);
+  }
+  return out;
 }
 
 /** The keys front matter may hold; anything else is a mistake worth stopping for. */
@@ -211,9 +300,13 @@ export const frontMatterKeys: readonly string[] = [
   "title",
   "document",
   "revision",
-  "params",
+  "settings",
+  "requirements",
   "signoff",
 ];
+
+/** Keys an earlier version used, with the name they have now. */
+const renamedKeys: Record<string, string> = { params: "settings" };
 
 /** The known word nearest to a misspelt one (at most two edits away), if any. */
 export function closest(word: string, known: readonly string[]): string | undefined {

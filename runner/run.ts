@@ -18,6 +18,7 @@ import type {
   Verdict,
   Worksheet,
 } from "../record/types.ts";
+import { requirementRows } from "../record/verdict.ts";
 import { type ExecuteOptions, executeWorksheet, projectRoot } from "./execute.ts";
 import { applyOverrides } from "./params.ts";
 import { parseWorksheet, WorksheetError } from "./parse.ts";
@@ -124,6 +125,23 @@ async function staleBecause(dir: string, existing: Manifest | undefined, inputs:
   })`;
 }
 
+/** The command line that runs the worksheet again as this run did. */
+function reproducingCommand(
+  display: string,
+  date: string,
+  params: Record<string, ParamValue>,
+  overridden: string[],
+): string {
+  const quote = (
+    text: string,
+  ) => (/^[\w./:=,+-]+$/.test(text) ? text : `'${text.replaceAll("'", "'\\''")}'`);
+  const sets = overridden.map((n) => {
+    const v = params[n]!;
+    return `--set ${quote(`${n}=${Array.isArray(v) ? v.join(",") : String(v)}`)}`;
+  });
+  return ["deno task tapsheet run", quote(display), "--date", date, ...sets].join(" ");
+}
+
 /** Problems as the report shows them: located in the worksheet by its report name. */
 function withDisplayPath(execution: ExecutionResult, path: string, display: string) {
   const problem = execution.problem;
@@ -168,6 +186,8 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
       source: text,
       meta: { title: reportName(path), document: "", revision: "", signoff: [] },
       params: {},
+      paramRules: {},
+      requirements: [],
       parts: [],
     };
   }
@@ -203,7 +223,7 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
       params,
       libraryModule ? { ...options, libraryModule } : options,
     )
-    : { outcome: "rejected", blocks: [], problem, durationMs: 0 };
+    : { outcome: "rejected", requirements: [], blocks: [], problem, durationMs: 0 };
   const report = await writeReport(outDir, folderName, {
     worksheet,
     params,
@@ -215,20 +235,23 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
       worksheetPath: name.display,
       worksheetSha256: sha256Hex(text),
       tapsheetVersion: tapsheetVersion(),
+      toolSha256: hashOfTool(),
+      platform: `${Deno.build.os} ${Deno.build.arch}`,
+      command: reproducingCommand(name.display, date, params, overridden),
       denoVersion: Deno.version.deno,
       packages: packageVersions(),
       date,
     },
   });
-  const checks = execution.blocks.flatMap((b) => b.exhibits).filter((e) => e.type === "check");
+  const rows = requirementRows(execution);
   const summary: RunSummary = {
     path,
     name: folderName,
     reportDir: report.dir,
     verdict: report.verdict,
     outcome: execution.outcome,
-    met: checks.filter((c) => c.type === "check" && c.result.met).length,
-    checked: checks.length,
+    met: rows.filter((r) => r.check?.result.met === true).length,
+    checked: rows.length,
     fingerprint: report.fingerprint,
     skipped: false,
     durationMs: performance.now() - started,

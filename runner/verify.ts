@@ -67,7 +67,7 @@ export async function verifyReport(file: string, outDir: string): Promise<Verifi
       await runWorksheet(file, {
         outDir: scratch,
         reportName: folderName,
-        paramsFromFile: manifest.params,
+        paramsFromFile: manifest.settings,
         date: manifest.provenance.date,
         force: true,
       });

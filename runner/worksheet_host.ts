@@ -36,7 +36,7 @@ const refuse = (what: string) => () => {
 
 scope.onmessage = (event: MessageEvent<HostStart>) => {
   scope.onmessage = null;
-  const { port, moduleUrl, params } = event.data;
+  const { port, moduleUrl, params, requirements } = event.data;
   let current = -1;
   const send = (message: HarnessMessage) => void apply(post, port, [message]);
   const emit = (exhibit: Exhibit) => send({ kind: "exhibit", block: current, exhibit });
@@ -51,7 +51,7 @@ scope.onmessage = (event: MessageEvent<HostStart>) => {
     send({ kind: "error", block: current, name, message, stack });
   };
 
-  connectSheet(emit, params);
+  connectSheet(emit, params, requirements);
   const print = (...args: unknown[]) =>
     emit({
       type: "output",

@@ -4,46 +4,13 @@ import { renderCount } from "../../render/svg.ts";
 import { type ReportContent, writeReport } from "../../render/write.ts";
 import type { FigureExhibit } from "../../record/types.ts";
 import { runToEnd } from "../_process.ts";
+import { reportContent } from "./_content.ts";
 
 function content(figures: FigureExhibit[]): ReportContent {
-  return {
-    worksheet: {
-      path: "w.md",
-      source: "",
-      meta: { title: "W", document: "D", revision: "1", signoff: [] },
-      params: {},
-      parts: [{ kind: "code", index: 0, code: "", fenceLine: 1, startLine: 2, endLine: 1 }],
-    },
-    params: {},
-    overridden: [],
-    inputs: "x",
-    worksheetId: "w.md",
-    execution: {
-      outcome: "completed",
-      durationMs: 1,
-      blocks: [{
-        index: 0,
-        status: "ok",
-        exhibits: [
-          ...figures,
-          {
-            type: "export",
-            fileName: "taps.csv",
-            content: "index,value\n0,1\n",
-            description: "CSV",
-          },
-        ],
-      }],
-    },
-    provenance: {
-      worksheetSha256: "0".repeat(64),
-      worksheetPath: "w.md",
-      tapsheetVersion: "0",
-      denoVersion: "0",
-      packages: [{ name: "vega", version: "6.4.0" }],
-      date: "2026-01-01",
-    },
-  };
+  return reportContent([
+    ...figures,
+    { type: "export", fileName: "taps.csv", content: "index,value\n0,1\n", description: "CSV" },
+  ]);
 }
 
 const line = (title: string, y: number[]): FigureExhibit => ({

@@ -133,7 +133,7 @@ const usage: [string, string[], number, RegExp][] = [
     2,
     /No such worksheet or folder: no\/such\/file.md/,
   ],
-  ["unknown parameter", ["run", demo, "--set", "fz=8000"], 2, /Unknown parameter 'fz'/],
+  ["unknown parameter", ["run", demo, "--set", "fz=8000"], 2, /Unknown setting 'fz'/],
   [
     "parameter of wrong type",
     ["run", demo, "--set", "fs=fast"],
@@ -186,7 +186,7 @@ Deno.test("cli: a parameters file overrides front matter, and --set overrides th
       demo,
       "--out",
       out,
-      "--params",
+      "--settings",
       values,
       "--set",
       "taps=101",
@@ -196,16 +196,16 @@ Deno.test("cli: a parameters file overrides front matter, and --set overrides th
     const manifest = JSON.parse(
       await Deno.readTextFile(join(out, "pump_monitor_antialias", "manifest.json")),
     );
-    assert.equal(manifest.params.taps, 101);
-    assert.equal(manifest.params.stopbandEdge, 1800);
-    assert.equal(manifest.params.fs, 8000);
+    assert.equal(manifest.settings.taps, 101);
+    assert.equal(manifest.settings.stopbandEdge, 1800);
+    assert.equal(manifest.settings.fs, 8000);
     const html = await Deno.readTextFile(join(out, "pump_monitor_antialias", "index.html"));
-    assert.match(html, /<td>taps<\/td><td class="num">101<\/td><td>set for this run<\/td>/);
-    assert.match(html, /<td>fs<\/td><td class="num">8000<\/td><td>worksheet value<\/td>/);
+    assert.match(html, /<td>taps<\/td><td class="num">101<\/td>.*?<td>set for this run<\/td>/);
+    assert.match(html, /<td>fs<\/td><td class="num">8000<\/td>.*?<td>worksheet value<\/td>/);
     assert.match(r.stdout, /"verdict": "(met|not met)"/);
     const bad = join(out, "bad.yaml");
     await Deno.writeTextFile(bad, "taps: many\n");
-    const rejected = await tapsheet(["run", demo, "--out", out, "--params", bad]);
+    const rejected = await tapsheet(["run", demo, "--out", out, "--settings", bad]);
     assert.equal(rejected.code, 2);
     assert.match(rejected.stderr, /'taps' must be a number, got '"many"'/);
   } finally {
@@ -258,12 +258,12 @@ Deno.test("cli: mistakes in files and folders given on the command line exit 2 w
     const cases: [string, string[], RegExp][] = [
       [
         "missing parameters file",
-        ["run", demo, "--params", join(dir, "none.yaml")],
+        ["run", demo, "--settings", join(dir, "none.yaml")],
         /none\.yaml does not exist/,
       ],
       [
         "parameters file that is not YAML",
-        ["run", demo, "--params", join(dir, "broken.yaml")],
+        ["run", demo, "--settings", join(dir, "broken.yaml")],
         /broken\.yaml is not valid YAML or JSON/,
       ],
       [
@@ -286,6 +286,11 @@ Deno.test("cli: mistakes in files and folders given on the command line exit 2 w
         "unknown option names its command",
         ["verify", demo, "--fast"],
         /deno task tapsheet verify --help/,
+      ],
+      [
+        "the old name of --settings",
+        ["run", demo, "--params", "x.yaml"],
+        /Option '--params' is now called '--settings'/,
       ],
     ];
     for (const [what, args, message] of cases) {

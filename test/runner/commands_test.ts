@@ -7,13 +7,12 @@ import { runToEnd } from "../_process.ts";
 
 const cli = cliArgs;
 
-const sheet = (body: string, title = "Small sheet") =>
-  `---\ntitle: ${title}\ndocument: T-9\nrevision: A\nparams:\n  gain: 2\n---\n\nProse.\n\n\`\`\`ts\n${body}\n\`\`\`\n`;
+const sheet = (body: string, title = "Small sheet", limit = 3) =>
+  `---\ntitle: ${title}\ndocument: T-9\nrevision: A\nsettings:\n  gain: 2\nrequirements:\n  - id: R-1\n    text: Gain\n    atMost: ${limit}\n---\n\nProse.\n\n\`\`\`ts\n${body}\n\`\`\`\n`;
 
 const passing = `import { sheet } from "tapsheet/sheet";
-import { judge } from "tapsheet";
 const gain = sheet.number("gain");
-sheet.check(judge("Gain", gain, { atMost: 3 }, "", { id: "R-1" }));
+sheet.check("R-1", gain);
 sheet.figure({ kind: "line", title: "A line", series: [{ name: "y", x: [0, 1, 2], y: [0, gain, 0] }] });`;
 
 Deno.test("check: reports type errors at worksheet lines without running anything", async () => {
@@ -32,9 +31,9 @@ Deno.test("check: reports type errors at worksheet lines without running anythin
     assert.equal(bad.code, 2);
     assert.match(
       bad.stderr,
-      /typo\.md:13:7: Type 'string' is not assignable to type 'number'\. \(TS2322\)/,
+      /typo\.md:17:7: Type 'string' is not assignable to type 'number'\. \(TS2322\)/,
     );
-    assert.match(bad.stderr, /13 \| const n: number = sheet\.text\("gain"\);/);
+    assert.match(bad.stderr, /17 \| const n: number = sheet\.text\("gain"\);/);
   } finally {
     await Deno.remove(dir, { recursive: true });
   }
@@ -75,7 +74,7 @@ Deno.test("verify: matches an untouched report and catches a changed one", async
     const same = await tapsheet(["verify", file, "--out", out]);
     assert.equal(same.code, 0, same.stdout + same.stderr);
     assert.match(same.stdout, /matches/);
-    await Deno.writeTextFile(file, sheet(passing.replace("atMost: 3", "atMost: 2.5")));
+    await Deno.writeTextFile(file, sheet(passing, "Small sheet", 2.5));
     const differs = await tapsheet(["verify", file, "--out", out]);
     assert.equal(differs.code, 1);
     assert.match(differs.stdout, /differs/);
@@ -90,7 +89,7 @@ Deno.test("run --json writes machine-readable results with durations", async () 
     await Deno.writeTextFile(join(dir, "a.md"), sheet(passing, "Sheet A"));
     await Deno.writeTextFile(
       join(dir, "b.md"),
-      sheet(passing.replace("atMost: 3", "atMost: 1"), "Sheet B"),
+      sheet(passing, "Sheet B", 1),
     );
     const r = await tapsheet([
       "run",

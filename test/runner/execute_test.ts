@@ -2,16 +2,20 @@ import assert from "node:assert/strict";
 import { executeWorksheet } from "../../runner/execute.ts";
 import { parseWorksheet } from "../../runner/parse.ts";
 
-const run = (code: string, params: Record<string, number> = {}) => {
-  const text = `---\ntitle: t\n---\n\n\`\`\`ts\n${code}\n\`\`\`\n`;
+const run = (code: string, params: Record<string, number> = {}, front = "") => {
+  const text = `---\ntitle: t\n${front}---\n\n\`\`\`ts\n${code}\n\`\`\`\n`;
   const ws = parseWorksheet("t.md", text);
   return executeWorksheet(ws, params);
 };
 
 Deno.test("execute: non-finite numbers survive the trip from the child", async () => {
-  const r = await run(`import { sheet } from "tapsheet/sheet";
-sheet.check({ name: "Settling time", achieved: Infinity, limit: 0.1, relation: "atMost", unit: "s", margin: -Infinity, met: false });
-sheet.table("t", ["x"], [[NaN], [-Infinity]]);`);
+  const r = await run(
+    `import { sheet } from "tapsheet/sheet";
+sheet.check({ name: "Settling time", id: "S-1", achieved: Infinity, limit: 0.1, relation: "atMost", unit: "s", margin: -Infinity, met: false });
+sheet.table("t", ["x"], [[NaN], [-Infinity]]);`,
+    {},
+    "requirements:\n  - id: S-1\n    text: Settling time\n    atMost: 0.1\n    unit: s\n",
+  );
   assert.equal(r.outcome, "completed", JSON.stringify(r.problem));
   const [check, table] = r.blocks[0]!.exhibits;
   assert.ok(check?.type === "check" && table?.type === "table");
@@ -37,5 +41,5 @@ Deno.test("execute: a missing parameter is an error at its line", async () => {
   const r = await run(`import { sheet } from "tapsheet/sheet";\nconst x = sheet.number("nope");`);
   assert.equal(r.outcome, "error");
   assert.equal(r.problem?.line, 7);
-  assert.match(r.problem!.message, /Parameter 'nope' is not declared/);
+  assert.match(r.problem!.message, /Setting 'nope' is not declared/);
 });

@@ -11,6 +11,7 @@ import { runWorksheet } from "../../runner/run.ts";
 import { writeReport } from "../../render/write.ts";
 import { tapsheet, tapsheetWatched } from "./_cli.ts";
 import { runToEnd } from "../_process.ts";
+import { reportContent } from "../render/_content.ts";
 
 const hostile = (name: string) => new URL(`./hostile/${name}.md`, import.meta.url).pathname;
 
@@ -36,32 +37,12 @@ Deno.test("integrity: an export name that climbs out of the report is refused an
 Deno.test("integrity: writeReport itself refuses an export name with a folder in it", async () => {
   const out = await Deno.makeTempDir();
   try {
-    const ws = parseWorksheet("w.md", worksheet("1;"));
     await assert.rejects(
-      writeReport(out, "w", {
-        worksheet: ws,
-        params: {},
-        overridden: [],
-        inputs: "0",
-        worksheetId: "w.md",
-        execution: {
-          outcome: "completed",
-          durationMs: 0,
-          blocks: [{
-            index: 0,
-            status: "ok",
-            exhibits: [{ type: "export", fileName: "../escape.txt", content: "x" }],
-          }],
-        },
-        provenance: {
-          worksheetPath: "w.md",
-          worksheetSha256: "0",
-          tapsheetVersion: "0",
-          denoVersion: "0",
-          packages: [],
-          date: "2026-01-01",
-        },
-      }),
+      writeReport(
+        out,
+        "w",
+        reportContent([{ type: "export", fileName: "../escape.txt", content: "x" }]),
+      ),
       /not a plain file name/,
     );
     await assert.rejects(Deno.stat(join(out, "escape.txt")), Deno.errors.NotFound);
@@ -108,9 +89,13 @@ Deno.test("integrity: the worksheet may not even name the block marker", async (
 Deno.test("integrity: a hand-built requirement result is judged again by the runner", async () => {
   const ws = parseWorksheet(
     "c.md",
-    worksheet(`import { sheet } from "tapsheet/sheet";
-sheet.check({ name: "Attenuation", achieved: 40, limit: 80, relation: "atLeast", unit: "dB", margin: 40, met: true } as never);
-sheet.check({ name: "Ripple", achieved: NaN, limit: 1, relation: "atMost", unit: "dB", margin: 1, met: true } as never);`),
+    worksheet(
+      `import { sheet } from "tapsheet/sheet";
+sheet.check({ name: "Attenuation", id: "A-1", achieved: 40, limit: 80, relation: "atLeast", unit: "dB", margin: 40, met: true } as never);
+sheet.check({ name: "Ripple", id: "A-2", achieved: NaN, limit: 1, relation: "atMost", unit: "dB", margin: 1, met: true } as never);`,
+      "requirements:\n  - { id: A-1, text: Attenuation, atLeast: 80, unit: dB }\n" +
+        "  - { id: A-2, text: Ripple, atMost: 1, unit: dB }\n",
+    ),
   );
   const r = await executeWorksheet(ws, {});
   assert.equal(r.outcome, "completed", JSON.stringify(r.problem));

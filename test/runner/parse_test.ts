@@ -55,18 +55,18 @@ Deno.test("parse: CRLF line endings give the same result", async () => {
 const bad: [string, string, number, RegExp][] = [
   ["no front matter", "# Title\n", 1, /must start with front matter/],
   ["unclosed front matter", "---\ntitle: x\n", 1, /no closing/],
-  ["bad YAML", "---\ntitle: x\nparams: [1,\n---\n", 3, /not valid YAML/],
+  ["bad YAML", "---\ntitle: x\nsettings: [1,\n---\n", 3, /not valid YAML/],
   ["missing title", "---\ndocument: D\n---\n", 1, /must have 'title:'/],
   [
     "param of wrong type",
-    "---\ntitle: x\nparams:\n  fs: 8000\n  bands: [1, two]\n---\n",
+    "---\ntitle: x\nsettings:\n  fs: 8000\n  bands: [1, two]\n---\n",
     5,
     /'bands'.*list that is not all numbers/,
   ],
-  ["param null", "---\ntitle: x\nparams:\n  fs:\n---\n", 4, /'fs'.*null/],
+  ["param null", "---\ntitle: x\nsettings:\n  fs:\n---\n", 4, /'fs'.*null/],
   [
     "param declaration without value",
-    "---\ntitle: x\nparams:\n  fs: { min: 1 }\n---\n",
+    "---\ntitle: x\nsettings:\n  fs: { min: 1 }\n---\n",
     4,
     /declare 'value:'/,
   ],

@@ -7,12 +7,12 @@ import { tapsheet } from "./_cli.ts";
 import { sha256Hex } from "../../record/manifest.ts";
 
 const sheet = (limit = 3) =>
-  `---\ntitle: Verified sheet\ndocument: T-12\nrevision: A\nparams:\n  gain: 2\n---\n\nProse.\n\n` +
+  `---\ntitle: Verified sheet\ndocument: T-12\nrevision: A\nsettings:\n  gain: 2\n` +
+  `requirements:\n  - id: R-1\n    text: Gain\n    atMost: ${limit}\n---\n\nProse.\n\n` +
   "```ts\n" +
   `import { sheet } from "tapsheet/sheet";
-import { judge } from "tapsheet";
 const gain = sheet.number("gain");
-sheet.check(judge("Gain", gain, { atMost: ${limit} }, "", { id: "R-1" }));
+sheet.check("R-1", gain);
 sheet.figure({ kind: "line", title: "A line", series: [{ name: "y", x: [0, 1, 2], y: [0, gain, 0] }] });
 sheet.exportFile("taps.csv", "index,value\\n0," + gain + "\\n");
 ` + "```\n";
@@ -38,7 +38,7 @@ async function withReport(test: (s: Setup) => Promise<void>): Promise<void> {
   }
 }
 
-const figure = async (report: string) =>
+const figure = (report: string) =>
   [...Deno.readDirSync(join(report, "figures"))].map((e) => e.name).find((n) =>
     n.endsWith(".svg")
   )!;

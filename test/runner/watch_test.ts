@@ -10,20 +10,24 @@ import { runToEnd } from "../_process.ts";
 
 /** A worksheet with `checks` requirements (all met) that busy-waits `spinMs` first. */
 function sheet(checks: number, spinMs = 0): string {
+  const declared = Array.from(
+    { length: checks },
+    (_, i) => `  - id: G-${i}\n    text: Gain ${i}\n    atMost: 3\n`,
+  ).join("");
   return `---
 title: Watched sheet
-params:
+settings:
   spin: ${spinMs}
----
+requirements:
+${declared}---
 
 Prose.
 
 \`\`\`ts
 import { sheet } from "tapsheet/sheet";
-import { judge } from "tapsheet";
 const until = Date.now() + sheet.number("spin");
 while (Date.now() < until) { /* a slow design step */ }
-for (let i = 0; i < ${checks}; i++) sheet.check(judge("Gain " + i, 1, { atMost: 3 }, ""));
+for (let i = 0; i < ${checks}; i++) sheet.check("G-" + i, 1);
 \`\`\`
 `;
 }
