@@ -6,6 +6,7 @@ import { join, relative, sep } from "node:path";
 import type { LimitRelation, WorstCase } from "../lib/verify/requirement.ts";
 import type {
   ExecutionResult,
+  ImplementationCostFigures,
   ParamValue,
   Provenance,
   SourceProblem,
@@ -39,6 +40,17 @@ export interface ManifestRequirement {
   worst?: WorstCase;
 }
 
+/** A coefficient listing as the manifest keeps it; the values are in the CSV file `path`. */
+export interface ManifestListing {
+  name: string;
+  path: string;
+  layout: "list" | "sections";
+  count: number;
+  /** Fixed-point format of the codes, when the listing has codes. */
+  format?: string;
+  hasCodes: boolean;
+}
+
 /** Machine-readable results kept beside the report (no timings: it must be reproducible). */
 export interface Manifest {
   /** The worksheet, as the report names it (see Provenance.worksheetPath). */
@@ -53,6 +65,10 @@ export interface Manifest {
   problem?: SourceProblem;
   /** The requirement table: a row per declared requirement per design checked. */
   requirements: ManifestRequirement[];
+  /** Every coefficient listing: its name, layout, code format and the CSV file holding it. */
+  listings: ManifestListing[];
+  /** The implementation cost of each design the worksheet costed (sheet.cost). */
+  costs: { name: string; cost: ImplementationCostFigures }[];
   /** Every setting the run used (after --set and --settings). */
   settings: Record<string, ParamValue>;
   provenance: Provenance;

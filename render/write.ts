@@ -138,7 +138,7 @@ export async function writeReport(
     const fingerprint = reportFingerprint([...files, { path: pageFile, sha256: blank }], blank);
     await write(pageFile, page.replaceAll(fingerprintPlaceholder, fingerprint));
     const verdict = overallVerdict(content.execution);
-    const manifest = manifestOf(name, content, verdict, files, fingerprint);
+    const manifest = manifestOf(name, content, verdict, files, fingerprint, listings);
     await Deno.writeTextFile(join(stage, manifestFile), manifestText(manifest));
 
     // Swap in: move the old report aside, move the new one in, drop the old one.
@@ -239,7 +239,9 @@ function manifestOf(
   verdict: Verdict,
   files: WrittenFile[],
   fingerprint: string,
+  listings: Map<Exhibit, WrittenFile>,
 ): Omit<Manifest, "digest"> {
+  const exhibits = content.execution.blocks.flatMap((b) => b.exhibits);
   const m: Omit<Manifest, "digest"> = {
     worksheet: content.worksheetId,
     name,
@@ -249,6 +251,19 @@ function manifestOf(
     verdict,
     outcome: content.execution.outcome,
     requirements: manifestRequirements(content.execution),
+    listings: [...listings].map(([e, file]) => {
+      const c = e as CoefficientsExhibit;
+      const listing: Manifest["listings"][number] = {
+        name: c.name,
+        path: file.path,
+        layout: c.layout ?? "list",
+        count: c.values.length,
+        hasCodes: c.codes !== undefined,
+      };
+      if (c.format !== undefined) listing.format = c.format;
+      return listing;
+    }),
+    costs: exhibits.flatMap((e) => (e.type === "cost" ? [{ name: e.name, cost: e.cost }] : [])),
     settings: content.params,
     provenance: content.provenance,
     files,
