@@ -300,6 +300,8 @@ export interface ExecutionResult {
   problem?: SourceProblem;
   /** Wall-clock time of the child process in ms (not shown in the report). */
   durationMs: number;
+  /** Where the child's time went, ms from its start (for `run --timings`; not in the report). */
+  timings?: Record<string, number>;
 }
 
 /** The overall verdict of a run. */

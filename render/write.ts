@@ -24,7 +24,7 @@ import {
 import type { Provenance, Verdict, WrittenFile } from "../record/types.ts";
 import { manifestRequirements, overallVerdict, requirementRows } from "../record/verdict.ts";
 import { listingCsv, reportHtml, type ReportInput } from "./report.ts";
-import { vegaLiteToSvg } from "./svg.ts";
+import { vegaLiteToSvg, warmRenderer } from "./svg.ts";
 
 /** A short file-name stem from a title: lowercase letters, digits and dashes. */
 export function slug(title: string): string {
@@ -61,7 +61,15 @@ export async function writeReport(
   outDir: string,
   name: string,
   content: ReportContent,
+  /** Called with each step's name and duration in ms (for `run --timings`). */
+  onStep: (step: string, ms: number) => void = () => {},
 ): Promise<WrittenReport> {
+  let clock = performance.now();
+  const step = (label: string) => {
+    const now = performance.now();
+    onStep(label, now - clock);
+    clock = now;
+  };
   await Deno.mkdir(outDir, { recursive: true });
   const finalDir = join(outDir, name);
   await recoverInterruptedSwap(outDir, name);
@@ -79,19 +87,23 @@ export async function writeReport(
 
     const figures = new Map<Exhibit, WrittenFile>();
     const previous = await previousFigures(finalDir, content.provenance.packages);
-    let count = 0;
-    for (const block of content.execution.blocks) {
-      for (const exhibit of block.exhibits) {
-        if (exhibit.type !== "figure") continue;
-        count++;
-        const stem = `figures/${String(count).padStart(2, "0")}-${slug(exhibit.title)}`;
-        const spec = figureToVegaLite(exhibit, figureContext(exhibit, content.execution));
-        const specText = JSON.stringify(spec, null, 1) + "\n";
-        await write(`${stem}.vl.json`, specText);
-        // A figure whose specification is unchanged is not rendered again.
-        const svg = previous.get(specText) ?? (await vegaLiteToSvg(spec));
-        figures.set(exhibit, await write(`${stem}.svg`, svg, exhibit.title));
-      }
+    // Specifications first, in order; then every figure drawn at once (on the render
+    // workers when they run), written in order so the file list stays the same.
+    const drawn = content.execution.blocks.flatMap((b) =>
+      b.exhibits.filter((e): e is FigureExhibit => e.type === "figure")
+    ).map((exhibit, i) => {
+      const stem = `figures/${String(i + 1).padStart(2, "0")}-${slug(exhibit.title)}`;
+      const spec = figureToVegaLite(exhibit, figureContext(exhibit, content.execution));
+      const specText = JSON.stringify(spec, null, 1) + "\n";
+      // A figure whose specification is unchanged is not rendered again.
+      const reused = previous.get(specText);
+      return { exhibit, stem, specText, reused, svg: reused ?? vegaLiteToSvg(spec) };
+    });
+    step(`${drawn.length} figure specifications`);
+    for (const [i, f] of drawn.entries()) {
+      await write(`${f.stem}.vl.json`, f.specText);
+      figures.set(f.exhibit, await write(`${f.stem}.svg`, await f.svg, f.exhibit.title));
+      step(`figure ${i + 1}: ${f.reused ? "reused" : "drawn"} (${f.exhibit.kind})`);
     }
 
     // Every coefficient listing is also a CSV file of the report: its SHA-256 is the listing's.
@@ -137,6 +149,7 @@ export async function writeReport(
     const blank = sha256Hex(page);
     const fingerprint = reportFingerprint([...files, { path: pageFile, sha256: blank }], blank);
     await write(pageFile, page.replaceAll(fingerprintPlaceholder, fingerprint));
+    step("listings, exports, page");
     const verdict = overallVerdict(content.execution);
     const manifest = manifestOf(name, content, verdict, files, fingerprint, listings);
     await Deno.writeTextFile(join(stage, manifestFile), manifestText(manifest));
@@ -148,11 +161,36 @@ export async function writeReport(
     if (hadOld) await Deno.rename(finalDir, old);
     await Deno.rename(stage, finalDir);
     if (hadOld) await Deno.remove(old, { recursive: true });
+    step("manifest and swap into place");
     return { dir: finalDir, verdict, files, fingerprint };
   } catch (error) {
     await Deno.remove(stage, { recursive: true }).catch(() => {});
     throw error;
   }
+}
+
+/**
+ * Load vega and draw one small masked figure with a worst point, so that the
+ * report's own figures find vega loaded and its code paths compiled.
+ */
+export function warmUpRenderer(): Promise<void> {
+  return warmRenderer(warmUpSpecification());
+}
+
+/** The small figure drawn to warm the renderer up. */
+export function warmUpSpecification(): Record<string, unknown> {
+  const x = Array.from({ length: 64 }, (_, i) => i * 62.5);
+  const figure: FigureExhibit = {
+    type: "figure",
+    kind: "magnitude",
+    title: "warm-up",
+    series: [{ name: "h", x, y: x.map((f) => (f < 1000 ? 0 : -60)) }],
+    mask: [
+      { from: 0, to: 1000, level: -1, bound: "lower", label: "W-1" },
+      { from: 2000, to: 4000, level: -50, bound: "upper", label: "W-2" },
+    ],
+  };
+  return figureToVegaLite(figure, { worst: [{ id: "W-2", at: 2000, met: true }] });
 }
 
 /** Kinds of figure whose x axis is frequency in Hz. */

@@ -7,9 +7,12 @@ import { projectRoot, stopAllRuns } from "./execute.ts";
 import { messages } from "./messages.ts";
 import { ParamError } from "./params.ts";
 import { writeReportsIndex } from "../render/index_page.ts";
+import { startRenderWorkers } from "../render/svg.ts";
+import { warmUpSpecification } from "../render/write.ts";
 import { findChromium, printToPdf } from "./chromium.ts";
 import { parseWorksheet, WorksheetError } from "./parse.ts";
-import { type RunOptions, type RunSummary, runWorksheet } from "./run.ts";
+import { reportFolderName, type RunOptions, type RunSummary, runWorksheet } from "./run.ts";
+import { worksheetName } from "./provenance.ts";
 import { NoReportError, type Verification, verifyReport } from "./verify.ts";
 
 /** Exit codes, documented in `tapsheet run --help`. */
@@ -92,6 +95,29 @@ function parseArgs(
   return { positional, options };
 }
 
+function positiveInteger(name: string, text: string | undefined): number | undefined {
+  const v = positiveNumber(name, text);
+  if (v !== undefined && !Number.isInteger(v)) {
+    throw new UsageError(messages.cli.badNumber(name, text!));
+  }
+  return v;
+}
+
+/**
+ * The report folder of each worksheet of one run, chosen in order before any
+ * runs, so two same-named worksheets of one batch never take the same folder.
+ */
+async function reportFolderNames(outDir: string, files: string[]): Promise<string[]> {
+  const taken = new Set<string>();
+  const out: string[] = [];
+  for (const file of files) {
+    const name = await reportFolderName(outDir, worksheetName(file), file, taken);
+    taken.add(name);
+    out.push(name);
+  }
+  return out;
+}
+
 function positiveNumber(name: string, text: string | undefined): number | undefined {
   if (text === undefined) return undefined;
   const v = Number(text);
@@ -159,8 +185,8 @@ async function commandRun(args: string[]): Promise<number> {
   const { positional, options } = parseArgs(
     "run",
     args,
-    ["--out", "--set", "--settings", "--timeout", "--memory", "--date", "--json"],
-    ["--help", "--pdf", "--force", "--exit-zero"],
+    ["--out", "--set", "--settings", "--timeout", "--memory", "--date", "--json", "--jobs"],
+    ["--help", "--pdf", "--force", "--exit-zero", "--timings"],
   );
   if (options.has("--help")) {
     console.log(messages.cli.runUsage);
@@ -183,15 +209,40 @@ async function commandRun(args: string[]): Promise<number> {
   if (memory !== undefined) runOptions.memoryMb = memory;
   if (date !== undefined) runOptions.date = date;
   if (options.has("--force")) runOptions.force = true;
+  if (options.has("--timings")) runOptions.timings = true;
 
   const files = await collect(positional);
+  // In a batch, figures are drawn off this thread, in workers that load vega while the
+  // worksheets run (measured: 15 % less time per worksheet for 50 of them). One worksheet
+  // alone is quicker drawn here: two workers loading vega would compete with its child.
+  if (files.length > 1) {
+    startRenderWorkers(warmUpSpecification());
+    runOptions.renderWorkers = true;
+  }
   // With --json -, standard output carries the JSON alone; the progress lines go to standard error.
   const jsonToStdout = options.get("--json")?.at(-1) === "-";
   const say = jsonToStdout ? console.error : console.log;
-  const summaries: RunSummary[] = [];
-  for (const file of files) {
-    const summary = await runWorksheet(file, runOptions);
-    summaries.push(summary);
+  const names = await reportFolderNames(runOptions.outDir!, files);
+  // One worksheet per core at a time: while one report's figures are drawn on this
+  // thread, the next worksheet's sandbox child computes on another core.
+  const jobs = Math.max(
+    1,
+    Math.min(
+      positiveInteger("--jobs", options.get("--jobs")?.at(-1)) ?? navigator.hardwareConcurrency,
+      files.length,
+    ),
+  );
+  const summaries: RunSummary[] = new Array(files.length);
+  let next = 0;
+  const runNext = async (): Promise<void> => {
+    while (next < files.length) {
+      const i = next++;
+      const summary = await runWorksheet(files[i]!, { ...runOptions, reportName: names[i]! });
+      summaries[i] = summary;
+      await report(files[i]!, summary);
+    }
+  };
+  const report = async (file: string, summary: RunSummary) => {
     const p = summary.problem;
     say(
       `${verdictLabel(summary)}  ${file}  ${summary.met}/${summary.checked} requirements met  ${
@@ -203,8 +254,10 @@ async function commandRun(args: string[]): Promise<number> {
       if (p.excerpt) console.error(`  ${p.line} | ${p.excerpt}`);
     }
     if (summary.rerunBecause) console.error(`  ${messages.cli.rerunBecause(summary.rerunBecause)}`);
+    if (summary.timings) printTimings(summary.timings, say);
     if (options.has("--pdf")) await writePdf(summary.reportDir, say);
-  }
+  };
+  await Promise.all(Array.from({ length: jobs }, runNext));
   if (summaries.length > 1) printSummary(summaries, say);
   await writeReportsIndex(runOptions.outDir!);
   const json = options.get("--json")?.at(-1);
@@ -245,6 +298,22 @@ async function writePdf(reportDir: string, say: (line: string) => void): Promise
   await Deno.writeFile(temp, pdf);
   await Deno.rename(temp, join(reportDir, "report.pdf"));
   say(`  → ${join(reportDir, "report.pdf")}`);
+}
+
+/** Where the time of one run went, one step a line. */
+function printTimings(timings: [string, number][], say: (line: string) => void): void {
+  const width = Math.max(...timings.map(([label]) => label.length));
+  say(
+    `    ${"start Deno and load the command line".padEnd(width)}  ${
+      loadedAt.toFixed(1).padStart(7)
+    } ms`,
+  );
+  for (const [label, ms] of timings) {
+    say(`    ${label.padEnd(width)}  ${ms.toFixed(1).padStart(7)} ms`);
+  }
+  say(
+    `    ${"process start to now".padEnd(width)}  ${performance.now().toFixed(1).padStart(7)} ms`,
+  );
 }
 
 function printSummary(summaries: RunSummary[], say: (line: string) => void): void {
@@ -519,6 +588,9 @@ async function commandWatch(args: string[]): Promise<number> {
   }
   return 0;
 }
+
+/** When the command line's own modules had loaded (ms since the process started). */
+const loadedAt = performance.now();
 
 /** Entry point; returns the exit code. */
 export async function main(args: string[]): Promise<number> {

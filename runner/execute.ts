@@ -37,6 +37,11 @@ export interface ExecuteOptions {
    * import name "tapsheet". @default lib/mod.ts, loaded module by module
    */
   libraryModule?: string;
+  /**
+   * Called once the child has started, e.g. to load the renderer on this
+   * process's thread while the child works on the other core.
+   */
+  onChildStarted?: () => void;
 }
 
 /** Root of the tapsheet project (the folder holding deno.json). */
@@ -134,7 +139,7 @@ export async function executeWorksheet(
         nonce: session.nonce,
         timeoutSeconds: limits.timeoutSeconds,
       };
-      const ending = await superviseChild(child, input, limits, session);
+      const ending = await superviseChild(child, input, limits, session, options.onChildStarted);
       return conclude(worksheet, codeParts, moduleUrl, session, ending, limits, started);
     } finally {
       activeRuns.delete(child);
@@ -301,6 +306,7 @@ class ProtocolSession {
   readonly nonce = `\u0001${crypto.randomUUID()}\u0002`;
   current = -1;
   done = false;
+  timings: Record<string, number> | undefined;
   error: Extract<HarnessMessage, { kind: "error" }> | undefined;
   violation: string | undefined;
   /** Requirement id and design of every check so far. */
@@ -379,6 +385,11 @@ class ProtocolSession {
           );
         }
         this.done = true;
+        if (message.timings && typeof message.timings === "object") {
+          this.timings = Object.fromEntries(
+            Object.entries(message.timings).filter(([, v]) => typeof v === "number"),
+          );
+        }
         return;
       default:
         throw new ProtocolError("a message of no known kind");
@@ -404,6 +415,7 @@ async function superviseChild(
   input: HarnessInput,
   limits: Limits,
   session: ProtocolSession,
+  onStarted: (() => void) | undefined,
 ): Promise<Ending> {
   let stopped: RunOutcome | undefined;
   const stop = (why: RunOutcome) => {
@@ -444,14 +456,17 @@ async function superviseChild(
   };
   const stderr: string[] = [];
   const writer = child.stdin.getWriter();
+  // The input first: the child waits for it, and onStarted may hold this thread a while.
+  const sending = writer.write(
+    new TextEncoder().encode(JSON.stringify(input, encodeNumbers) + "\n"),
+  ).catch(() => {}).then(() => onStarted?.());
   const [status] = await Promise.all([
     child.status,
     readLines(child.stdout, (l) => session.line(l)),
     readLines(child.stderr, (l) => {
       if (stderr.length < 200) stderr.push(l);
     }),
-    writer.write(new TextEncoder().encode(JSON.stringify(input, encodeNumbers) + "\n"))
-      .catch(() => {}),
+    sending,
   ]);
   clearTimeout(timer);
   clearInterval(watchdog);
@@ -526,6 +541,7 @@ function conclude(
     blocks,
     durationMs: performance.now() - started,
   };
+  if (session.timings) result.timings = session.timings;
   if (problem !== undefined) result.problem = problem;
   return result;
 }

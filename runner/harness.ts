@@ -17,6 +17,8 @@ import {
 const exitCodes = { done: 0, failed: 1, parentGone: 125, timeUp: 124 } as const;
 
 const encoder = new TextEncoder();
+/** Milliseconds since this process started, at each step (for `run --timings`). */
+const timings: Record<string, number> = { harnessStarted: performance.now() };
 const stdin = Deno.stdin.readable.getReader();
 
 /** The first line on standard input; whatever follows is only watched for its end. */
@@ -46,22 +48,46 @@ const input = await readInput();
 // Backstop behind the parent's own timeout.
 setTimeout(() => Deno.exit(exitCodes.timeUp), (input.timeoutSeconds + 5) * 1000);
 
+// Messages are queued and written as the parent reads them: a parent busy on
+// its own thread (loading the renderer) then holds up only this writer, never
+// the worksheet, which keeps computing in its worker.
+const queue: Uint8Array[] = [];
+let writing: Promise<void> | undefined;
 function send(message: HarnessMessage): void {
   // A leading newline ends any partial line the worksheet printed itself.
-  const bytes = encoder.encode(`\n${input.nonce}${JSON.stringify(message, encodeNumbers)}\n`);
-  let written = 0;
-  while (written < bytes.length) written += Deno.stdout.writeSync(bytes.subarray(written));
+  queue.push(encoder.encode(`\n${input.nonce}${JSON.stringify(message, encodeNumbers)}\n`));
+  writing ??= (async () => {
+    while (queue.length > 0) {
+      const bytes = queue.shift()!;
+      let written = 0;
+      while (written < bytes.length) written += await Deno.stdout.write(bytes.subarray(written));
+    }
+    writing = undefined;
+  })();
+}
+
+/** End the process once every queued message is written. */
+async function finish(code: number): Promise<never> {
+  while (writing !== undefined) await writing;
+  Deno.exit(code);
 }
 
 let current = -1;
+timings.inputRead = performance.now();
 const worker = new Worker(input.hostUrl, { type: "module", name: "worksheet" });
 const { port1, port2 } = new MessageChannel();
 port1.onmessage = (event: MessageEvent<HarnessMessage>) => {
   const message = event.data;
-  if (message.kind === "block") current = message.index;
-  send(message);
-  if (message.kind === "done") Deno.exit(exitCodes.done);
-  if (message.kind === "error") Deno.exit(exitCodes.failed);
+  if (message.kind === "block") {
+    if (current < 0) timings.firstBlock = performance.now();
+    current = message.index;
+  }
+  if (message.kind === "done") {
+    timings.done = performance.now();
+    send({ kind: "done", timings });
+    void finish(exitCodes.done);
+  } else send(message);
+  if (message.kind === "error") void finish(exitCodes.failed);
 };
 // Messages on the worker's own channel come from worksheet code (self.postMessage): ignored.
 worker.onmessage = () => {};
@@ -75,7 +101,7 @@ worker.onerror = (event) => {
     message: event.message,
     stack: `${event.filename}:${event.lineno}:${event.colno}`,
   });
-  Deno.exit(exitCodes.failed);
+  void finish(exitCodes.failed);
 };
 const start: HostStart = {
   port: port2,

@@ -18,7 +18,7 @@ export type HarnessMessage =
   | { kind: "block"; index: number }
   | { kind: "exhibit"; block: number; exhibit: Exhibit }
   | { kind: "error"; block: number; name: string; message: string; stack: string }
-  | { kind: "done" };
+  | { kind: "done"; timings?: Record<string, number> };
 
 /** Prefix of a string that stands for Infinity, −Infinity or NaN in a message. */
 export const nonFiniteMark = "\u0000number:";

@@ -122,11 +122,14 @@ Options:
   --settings FILE      read settings from a YAML or JSON file of name: value pairs
   --timeout SECONDS    wall-clock limit per worksheet (default: 60)
   --memory MB          memory limit per worksheet (default: 1024)
+  --jobs N             worksheets run at once (default: one per processor core)
   --date YYYY-MM-DD    date printed in the report (default: SOURCE_DATE_EPOCH, else today)
   --json FILE          write machine-readable results to FILE ('-' for standard output)
   --pdf                also write report.pdf with headless Chromium, when installed
                        (the PDF is not part of the report's fingerprint)
   --force              run even when nothing changed since the last report
+  --timings            print where each run's time went (child start, worksheet,
+                       vega, each figure, writing)
   --exit-zero          exit with 0 even when a requirement is not met (a failed
                        worksheet still exits with 2); for rendering demos
   --help               show this help

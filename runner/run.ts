@@ -2,8 +2,7 @@
 import { basename, dirname, join } from "node:path";
 import { hashOfFiles } from "./fingerprint.ts";
 import { libraryBundle } from "./library_bundle.ts";
-import { writeReport } from "../render/write.ts";
-import { preloadRenderer } from "../render/svg.ts";
+import { warmUpRenderer, writeReport } from "../render/write.ts";
 import {
   checkReportFolder,
   folderIsIntact,
@@ -44,6 +43,13 @@ export interface RunOptions extends ExecuteOptions {
   force?: boolean;
   /** Report folder name inside outDir. @default chosen by {@link reportFolderName} */
   reportName?: string;
+  /** Record where the time goes (RunSummary.timings). @default false */
+  timings?: boolean;
+  /**
+   * Figures are drawn by render workers started with startRenderWorkers (the
+   * command line does): vega is then never loaded on this thread. @default false
+   */
+  renderWorkers?: boolean;
 }
 
 /** The outcome of running one worksheet. */
@@ -62,6 +68,8 @@ export interface RunSummary {
   /** Why an existing report with the same inputs was run again (tampered, incomplete). */
   rerunBecause?: string;
   durationMs: number;
+  /** Steps and their durations in ms, when RunOptions.timings asked for them. */
+  timings?: [string, number][];
 }
 
 /** The plain report folder name of a worksheet: its file name without ".md". */
@@ -75,16 +83,23 @@ export function reportName(path: string): string {
  * name (from another folder); then the name gets a short hash of the
  * worksheet's identity, so neither report overwrites the other.
  */
-export async function reportFolderName(outDir: string, name: WorksheetName, path: string) {
+export async function reportFolderName(
+  outDir: string,
+  name: WorksheetName,
+  path: string,
+  /** Folders already given to other worksheets of the same run. */
+  takenInRun: ReadonlySet<string> = new Set(),
+): Promise<string> {
   const plain = reportName(path);
   const other = `${plain}-${sha256Hex(name.identity).slice(0, 8)}`;
   for (const candidate of [plain, other]) {
+    if (takenInRun.has(candidate)) continue;
     if ((await readManifest(join(outDir, candidate)))?.worksheet === name.identity) {
       return candidate;
     }
   }
-  const taken = await readManifest(join(outDir, plain));
-  return taken === undefined ? plain : other;
+  const taken = takenInRun.has(plain) || (await readManifest(join(outDir, plain))) !== undefined;
+  return taken ? other : plain;
 }
 
 let toolHash: string | undefined;
@@ -159,6 +174,13 @@ function withDisplayPath(execution: ExecutionResult, path: string, display: stri
  */
 export async function runWorksheet(path: string, options: RunOptions = {}): Promise<RunSummary> {
   const started = performance.now();
+  const timings: [string, number][] = [];
+  let clock = started;
+  const step = (label: string) => {
+    const now = performance.now();
+    timings.push([label, now - clock]);
+    clock = now;
+  };
   const text = await Deno.readTextFile(path);
   const name = worksheetName(path);
   const outDir = options.outDir ?? "reports";
@@ -192,11 +214,13 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
     };
   }
 
+  step("read and parse the worksheet, apply settings");
   const inputs = sha256Hex(
     [text, JSON.stringify(params), date, hashOfTool(), hashOfData(path)].join("\n"),
   );
   const existing = await readManifest(reportDir);
   const stale = options.force ? "forced" : await staleBecause(reportDir, existing, inputs);
+  step("hash the inputs, check the existing report");
   if (stale === undefined && existing !== undefined) {
     const summary: RunSummary = {
       path,
@@ -214,16 +238,40 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
     return summary;
   }
 
-  // Load the plotting packages while the worksheet runs in its child process.
-  void preloadRenderer();
   const libraryModule = await libraryBundle();
+  step("find the bundled library");
+  // Load the plotting packages while the worksheet runs in its child process: only once the
+  // child has started, since evaluating them holds this thread for a while.
+  let renderer: Promise<unknown> | undefined;
+  const startRenderer = () =>
+    void (renderer ??= options.renderWorkers ? Promise.resolve() : warmUpRenderer());
   const execution: ExecutionResult = problem === undefined
-    ? await executeWorksheet(
-      worksheet,
-      params,
-      libraryModule ? { ...options, libraryModule } : options,
-    )
+    ? await executeWorksheet(worksheet, params, {
+      ...options,
+      ...(libraryModule ? { libraryModule } : {}),
+      onChildStarted: startRenderer,
+    })
     : { outcome: "rejected", requirements: [], blocks: [], problem, durationMs: 0 };
+  step("run the worksheet in its sandbox (whole child)");
+  if (execution.timings) {
+    const t = execution.timings;
+    const lines: [string, number | undefined][] = [
+      ["  child: Deno start to harness", t.harnessStarted],
+      ["  child: input read, worker started", sub(t.inputRead, t.harnessStarted)],
+      ["  child: worker, library and module loaded", sub(t.firstBlock, t.inputRead)],
+      ["  child: worksheet code", sub(t.done, t.firstBlock)],
+    ];
+    for (const [label, ms] of lines) if (ms !== undefined) timings.push([label, ms]);
+  }
+  if (execution.blocks.some((b) => b.exhibits.some((e) => e.type === "figure"))) {
+    startRenderer();
+    await renderer;
+    step(
+      options.renderWorkers
+        ? "draw figures in the render workers"
+        : "wait for vega to load and warm up (overlapped with the child)",
+    );
+  }
   const report = await writeReport(outDir, folderName, {
     worksheet,
     params,
@@ -242,7 +290,8 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
       packages: packageVersions(),
       date,
     },
-  });
+  }, (label, ms) => timings.push([label, ms]));
+  clock = performance.now();
   const rows = requirementRows(execution);
   const summary: RunSummary = {
     path,
@@ -260,5 +309,10 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
     summary.rerunBecause = stale;
   }
   if (execution.problem) summary.problem = execution.problem;
+  if (options.timings) summary.timings = timings;
   return summary;
+}
+
+function sub(a: number | undefined, b: number | undefined): number | undefined {
+  return a === undefined || b === undefined ? undefined : a - b;
 }

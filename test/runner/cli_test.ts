@@ -358,3 +358,51 @@ Deno.test("cli: help names the command a user types", async () => {
   const unknown = await tapsheet(["frobnicate"]);
   assert.match(unknown.stderr, /Run 'deno task tapsheet help'/);
 });
+
+Deno.test("cli: run --timings says where the time went", async () => {
+  const out = await Deno.makeTempDir();
+  try {
+    const r = await tapsheet(["run", demo, "--out", out, "--timings"]);
+    for (
+      const step of [
+        /start Deno and load the command line +\d+\.\d ms/,
+        /run the worksheet in its sandbox \(whole child\) +\d+\.\d ms/,
+        /child: worksheet code +\d+\.\d ms/,
+        /figure 1: drawn \(magnitude\) +\d+\.\d ms/,
+        /manifest and swap into place +\d+\.\d ms/,
+      ]
+    ) assert.match(r.stdout, step);
+  } finally {
+    await Deno.remove(out, { recursive: true });
+  }
+});
+
+Deno.test("cli: a batch runs worksheets side by side and gives same-named ones their own folders", async () => {
+  const dir = await Deno.makeTempDir();
+  try {
+    const text = await Deno.readTextFile(demo);
+    for (const sub of ["a", "b", "c"]) {
+      await Deno.mkdir(join(dir, sub));
+      await Deno.writeTextFile(join(dir, sub, "pump.md"), text);
+    }
+    const out = join(dir, "reports");
+    const r = await tapsheet([
+      "run",
+      join(dir, "a"),
+      join(dir, "b"),
+      join(dir, "c"),
+      "--out",
+      out,
+      "--jobs",
+      "2",
+      "--exit-zero",
+    ]);
+    assert.equal(r.code, 0, r.stderr);
+    const folders = [...Deno.readDirSync(out)].filter((e) => e.isDirectory).map((e) => e.name);
+    assert.equal(folders.length, 3, folders.join(", "));
+    const bad = await tapsheet(["run", demo, "--jobs", "1.5"]);
+    assert.equal(bad.code, 2);
+  } finally {
+    await Deno.remove(dir, { recursive: true });
+  }
+});

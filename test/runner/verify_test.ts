@@ -252,3 +252,19 @@ Deno.test("run: same-named worksheets from two folders keep two reports", async 
     await Deno.remove(dir, { recursive: true });
   }
 });
+
+Deno.test("verify: a report made in a batch, after other figures, verifies on its own", async () => {
+  const dir = await Deno.makeTempDir();
+  try {
+    for (const name of ["a", "b", "c"]) await Deno.writeTextFile(join(dir, `${name}.md`), sheet());
+    const out = join(dir, "reports");
+    const r = await tapsheet(["run", dir, "--out", out, "--date", "2026-03-01"]);
+    assert.equal(r.code, 0, r.stderr);
+    for (const name of ["a", "b", "c"]) {
+      const v = await tapsheet(["verify", join(dir, `${name}.md`), "--out", out]);
+      assert.equal(v.code, 0, `${name}: ${v.stdout}`);
+    }
+  } finally {
+    await Deno.remove(dir, { recursive: true });
+  }
+});
