@@ -126,7 +126,17 @@ function requirementTable(rows: RequirementRow[], figureOf: Map<string, number>)
     return `<p class="empty">The worksheet declares no requirements.</p>`;
   }
   const showDesign = rows.some((r) => r.check && r.check.design !== defaultDesign);
-  const body = rows.map(({ requirement: d, check }) => {
+  // A requirement checked on several designs names itself once, over all its rows.
+  const span = (i: number) => {
+    const d = rows[i]!.requirement;
+    if (i > 0 && rows[i - 1]!.requirement === d) return "";
+    let n = 1;
+    while (rows[i + n]?.requirement === d) n++;
+    return `<td class="id"${n > 1 ? ` rowspan="${n}"` : ""}>${esc(d.id)}</td><td${
+      n > 1 ? ` rowspan="${n}"` : ""
+    }>${esc(d.text)}${scopeOf(d)}</td>`;
+  };
+  const body = rows.map(({ requirement: d, check }, i) => {
     const relation = d.relation === "atMost" ? "≤" : "≥";
     const source = typeof d.written === "string" && !/^[-+.\d]/.test(d.written)
       ? ` <span class="source">${esc(d.written)}</span>`
@@ -139,9 +149,7 @@ function requirementTable(rows: RequirementRow[], figureOf: Map<string, number>)
       withUnit(formatNumber(d.limit), d.unit)
     }${source}</td>`;
     if (check === undefined) {
-      return `<tr class="not-checked"><td class="id">${esc(d.id)}</td><td>${esc(d.text)}${
-        scopeOf(d)
-      }</td>${
+      return `<tr class="not-checked">${span(i)}${
         showDesign ? "<td>—</td>" : ""
       }${limit}<td class="num">—</td><td class="num">—</td><td class="num">—</td><td>${figureCell}</td><td class="verdict">Not checked</td></tr>`;
     }
@@ -149,9 +157,7 @@ function requirementTable(rows: RequirementRow[], figureOf: Map<string, number>)
     const zero = isRoundingZero(r.achieved, r.limit);
     const margin = `${r.margin >= 0 ? "+" : "−"}${formatNumber(Math.abs(r.margin))}`;
     const worst = r.worst && !zero ? withUnit(formatNumber(r.worst.at), r.worst.unit) : "—";
-    return `<tr class="${r.met ? "met" : "not-met"}"><td class="id">${esc(d.id)}</td><td>${
-      esc(d.text)
-    }${scopeOf(d)}</td>${
+    return `<tr class="${r.met ? "met" : "not-met"}">${span(i)}${
       showDesign ? `<td>${esc(check.design)}</td>` : ""
     }${limit}<td class="num">${achievedHtml(check)}</td><td class="num">${
       withUnit(margin, r.unit)
@@ -216,9 +222,9 @@ function listingHtml(c: CoefficientsExhibit, file: WrittenFile | undefined): str
       });
       rows.push(`<tr><td class="num">${s + 1}</td>${cells.join("")}</tr>`);
     }
-    table = `<table class="data sections"><thead><tr><th>Section</th>${
+    table = `<div class="table-scroll"><table class="data sections"><thead><tr><th>Section</th>${
       names.map((n) => `<th>${n}</th>`).join("")
-    }</tr></thead><tbody>${rows.join("")}</tbody></table>${
+    }</tr></thead><tbody>${rows.join("")}</tbody></table></div>${
       codes
         ? `<p class="note">Below each value: the integer code the target holds${
           c.format ? ` (${esc(c.format)})` : ""

@@ -47,6 +47,14 @@ table.requirements tr.not-checked { background: #fdf5e6; }
 table.requirements .band { display: block; font-size: 0.78rem; color: ${p.muted}; }
 table.requirements .source, .equivalent { display: block; font-size: 0.75rem; color: ${p.muted}; }
 .table-scroll { max-width: 100%; overflow-x: auto; }
+/* In a narrow window the requirement table scrolls inside its box; its verdicts stay in view. */
+@media screen and (max-width: 900px) {
+  table.requirements { font-size: 0.78rem; }
+  table.requirements td.verdict, table.requirements th:last-child {
+    position: sticky; right: 0; background: ${p.paper}; box-shadow: -4px 0 4px -4px ${p.rule};
+  }
+  table.requirements tr.not-met td.verdict { background: #fbeceb; }
+}
 .check .equivalent { display: inline; font-size: inherit; }
 .coverage { margin: 0.5rem 0 0; font-size: 0.9rem; color: ${p.muted}; }
 .hash, dd.hash { font-family: 'DejaVu Sans Mono', monospace; font-size: 0.78rem; word-break: break-all; }
@@ -69,6 +77,7 @@ table.requirements { font-size: 0.84rem; }
 table.requirements td:nth-child(2) { min-width: 10rem; }
 table.requirements td.num { white-space: normal; }
 table.requirements td, table.requirements th { padding: 0.3rem 0.35rem; }
+table.requirements td[rowspan] { background: ${p.paper}; }
 table.requirements td.id { white-space: nowrap; font-family: 'DejaVu Sans Mono', monospace; font-size: 0.82rem; }
 .figure { margin: 1rem 0; text-align: center; break-inside: avoid; }
 .figure img { max-width: 100%; height: auto; }
@@ -103,6 +112,19 @@ a { color: ${p.series[2]}; }
 @media print {
   body { max-width: none; padding: 0; font-size: 10.5pt; }
   h2, h3 { break-after: avoid; }
+  /* The identity and the whole requirement table fit the first page. */
+  h1 { font-size: 15pt; margin: 0 0 4pt; }
+  .identity { padding: 2pt 0 2pt 8pt; }
+  .facts { gap: 0 14pt; margin: 0 0 4pt; font-size: 8.5pt; }
+  .overall { padding: 2pt 8pt; font-size: 9pt; }
+  .coverage { font-size: 8pt; margin-top: 3pt; }
+  #requirements h2 { margin-top: 8pt; }
+  table.requirements { font-size: 7.5pt; line-height: 1.25; margin: 4pt 0; }
+  table.requirements td, table.requirements th { padding: 1.5pt 3pt; }
+  table.requirements td:nth-child(2) { min-width: 0; }
+  table.requirements td.id { font-size: 6.5pt; }
+  table.requirements .band, table.requirements .source, table.requirements .equivalent { display: inline; font-size: 6.5pt; }
+  table.requirements .band::before, table.requirements .source::before { content: " · "; }
   /* Long tables may break across pages; their rows and the figures do not. */
   tr, .figure, .check, .problem, .listing h3 { break-inside: avoid; }
   table.signoff, table.provenance { break-inside: avoid; }

@@ -119,3 +119,122 @@ Deno.test({
     }
   },
 });
+
+/** Where screenshots and printed copies of the demo reports go, for a reader to look at. */
+const shots = Deno.env.get("TAPSHEET_SCREENSHOTS");
+
+/** Layout facts of the page at the current viewport, measured in the page. */
+interface Layout {
+  viewport: number;
+  pageWidth: number;
+  /** Elements sticking out past the right edge (tag, class, right edge). */
+  overflowing: string[];
+  /** Figures whose caption is not visible, or does not start "Figure N." */
+  untitled: string[];
+  figures: number;
+  requirementsBottom: number;
+}
+
+const measure = `(() => {
+  const vw = window.innerWidth;
+  const overflowing = [];
+  for (const el of document.querySelectorAll("body *")) {
+    // Inside a scrolling box, a wide table scrolls; the box itself must fit.
+    if (el.closest(".table-scroll") && !el.classList.contains("table-scroll")) continue;
+    const r = el.getBoundingClientRect();
+    if (r.width > 0 && r.right > vw + 1) overflowing.push(el.tagName + "." + el.className + " " + Math.round(r.right));
+  }
+  const untitled = [];
+  const figures = [...document.querySelectorAll("figure.figure")];
+  for (const f of figures) {
+    const c = f.querySelector("figcaption");
+    const r = c ? c.getBoundingClientRect() : null;
+    const ok = c && r.width > 0 && r.height > 0 && /^Figure \\d+\\./.test(c.textContent.trim()) &&
+      f.querySelector("img").naturalHeight > 0;
+    if (!ok) untitled.push(f.id);
+  }
+  const req = document.querySelector("#requirements").getBoundingClientRect();
+  return { viewport: vw, pageWidth: document.documentElement.scrollWidth, overflowing: overflowing.slice(0, 10), untitled, figures: figures.length, requirementsBottom: req.bottom + window.scrollY };
+})()`;
+
+Deno.test({
+  name:
+    "browser: every demo report fits 1280 and 760 px, titles every figure, and prints its requirement table on page 1",
+  ignore: chromium === undefined,
+  async fn() {
+    const out = await Deno.makeTempDir();
+    try {
+      const cli = await tapsheet(["run", join(root, "worksheets"), "--out", out, "--exit-zero"]);
+      assert.equal(cli.code, 0, cli.stderr);
+      const demos = [...Deno.readDirSync(join(root, "worksheets"))]
+        .filter((e) => e.isFile && e.name.endsWith(".md")).map((e) => e.name.replace(/\.md$/, ""))
+        .sort();
+      assert.ok(demos.length >= 4, demos.join(", "));
+      for (const demo of demos) {
+        const url = pathToFileURL(join(out, demo, "index.html")).href;
+        await withPage(url, async (page) => {
+          for (const width of [1280, 760]) {
+            await page.send("Emulation.setDeviceMetricsOverride", {
+              width,
+              height: 1000,
+              deviceScaleFactor: 1,
+              mobile: false,
+            });
+            const layout = await page.evaluate<Layout>(measure);
+            assert.ok(layout.figures >= 1, `${demo}: figures`);
+            assert.ok(
+              layout.pageWidth <= width,
+              `${demo} at ${width} px: page ${layout.pageWidth} px wide`,
+            );
+            assert.deepEqual(layout.overflowing, [], `${demo} at ${width} px`);
+            assert.deepEqual(
+              layout.untitled,
+              [],
+              `${demo} at ${width} px: figures without a title`,
+            );
+            if (shots) {
+              const shot = await page.send("Page.captureScreenshot", {
+                format: "png",
+                captureBeyondViewport: true,
+                clip: { x: 0, y: 0, width, height: 2400, scale: 1 },
+              });
+              await Deno.writeFile(
+                join(shots, `${demo}-${width}.png`),
+                fromBase64(shot.data as string),
+              );
+            }
+          }
+          // Print: A4 with the report's own margins (16 mm each side, 18 mm top, 20 mm bottom):
+          // the text column is 178 mm wide and 259 mm tall, 673 × 979 CSS pixels.
+          // source: CSS 2.1 (96 CSS px per inch, 25.4 mm per inch); ISO 216 (A4 210 × 297 mm)
+          await page.send("Emulation.setEmulatedMedia", { media: "print" });
+          await page.send("Emulation.setDeviceMetricsOverride", {
+            width: 673,
+            height: 979,
+            deviceScaleFactor: 1,
+            mobile: false,
+          });
+          const printed = await page.evaluate<Layout>(measure);
+          assert.ok(
+            printed.requirementsBottom <= 979,
+            `${demo}: the requirement table ends ${printed.requirementsBottom} px down, past the first page`,
+          );
+          assert.deepEqual(printed.overflowing, [], `${demo} in print`);
+          await page.send("Emulation.setEmulatedMedia", { media: "screen" });
+          const pdf = await page.send("Page.printToPDF", {
+            printBackground: true,
+            preferCSSPageSize: true,
+          });
+          const bytes = fromBase64(pdf.data as string);
+          const pages = new TextDecoder("latin1").decode(bytes).match(/\/Type\s*\/Page[^s]/g)
+            ?.length ?? 0;
+          assert.ok(pages >= 2, `${demo}: ${pages} printed pages`);
+          if (shots) await Deno.writeFile(join(shots, `${demo}.pdf`), bytes);
+          assert.deepEqual(page.errors, [], `${demo}: page errors`);
+        }, { width: 1280, height: 1000 });
+      }
+    } finally {
+      await Deno.remove(out, { recursive: true });
+    }
+  },
+});
