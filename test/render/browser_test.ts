@@ -220,10 +220,13 @@ Deno.test({
             `${demo}: the requirement table ends ${printed.requirementsBottom} px down, past the first page`,
           );
           assert.deepEqual(printed.overflowing, [], `${demo} in print`);
-          await page.send("Emulation.setEmulatedMedia", { media: "screen" });
+          await page.send("Emulation.setEmulatedMedia", { media: "" });
+          await page.send("Emulation.clearDeviceMetricsOverride");
           const pdf = await page.send("Page.printToPDF", {
             printBackground: true,
             preferCSSPageSize: true,
+            paperWidth: 8.27, // source: ISO 216, A4 is 210 × 297 mm = 8.27 × 11.69 in
+            paperHeight: 11.69,
           });
           const bytes = fromBase64(pdf.data as string);
           const pages = new TextDecoder("latin1").decode(bytes).match(/\/Type\s*\/Page[^s]/g)
