@@ -102,9 +102,28 @@ export function fingerprintOf(files: readonly WrittenFile[]): string {
   return sha256Hex(files.map((f) => `${f.path} ${f.sha256}\n`).join(""));
 }
 
-/** The page with its fingerprint put back to the placeholder: what the fingerprint covers. */
+/**
+ * Where the page lists the approvals of the report. They are not part of the
+ * record they approve: the fingerprint is taken with this block empty, so
+ * approving a report does not change it.
+ */
+export const approvalsMarks = ["<!--tapsheet:approvals-->", "<!--/tapsheet:approvals-->"] as const;
+
+/** Put `html` between the page's approval marks. */
+export function withApprovalsBlock(page: string, html: string): string {
+  const [start, end] = approvalsMarks;
+  const i = page.indexOf(start);
+  const j = page.indexOf(end, i);
+  if (i < 0 || j < 0) return page;
+  return page.slice(0, i + start.length) + html + page.slice(j);
+}
+
+/**
+ * The page as its fingerprint covers it: the fingerprint put back to its
+ * placeholder and the approvals block emptied.
+ */
 export function blankPage(page: string, fingerprint: string): string {
-  return page.replaceAll(fingerprint, fingerprintPlaceholder);
+  return withApprovalsBlock(page.replaceAll(fingerprint, fingerprintPlaceholder), "");
 }
 
 /**

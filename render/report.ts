@@ -25,6 +25,8 @@ import {
   requirementRows,
 } from "../record/verdict.ts";
 import { escapeHtml as esc, proseToHtml } from "./html.ts";
+import { approvalsMarks } from "../record/manifest.ts";
+import type { ApprovalStatus } from "../record/approvals.ts";
 import { reportCss } from "./report_css.ts";
 
 /** Everything the report shows. */
@@ -319,6 +321,35 @@ function exhibitHtml(
   }
 }
 
+/**
+ * The approvals recorded for the report (deno task tapsheet approve), each
+ * with whether it still holds for this record. Not covered by the
+ * fingerprint: approving a report does not change the record approved.
+ */
+export function approvalsHtml(statuses: readonly ApprovalStatus[]): string {
+  if (statuses.length === 0) {
+    return `<p class="note">No approvals are recorded for this report (deno task tapsheet approve).</p>`;
+  }
+  const label: Record<ApprovalStatus["state"], string> = {
+    "holds": "Holds",
+    "void": "Void",
+    "superseded": "Superseded",
+    "bad signature": "Signature does not verify",
+  };
+  const rows = statuses.map(({ approval: a, state, why }) =>
+    `<tr class="approval ${state.replace(" ", "-")}"><td>${esc(a.role)}</td><td>${
+      esc(a.name)
+    }</td><td>${esc(a.date)}</td><td>${esc(a.revision)}</td><td class="hash">${
+      esc(a.fingerprint.slice(0, 16))
+    }…</td><td>${a.signature ? "Ed25519" : "unsigned"}</td><td class="verdict">${label[state]}${
+      why ? `<br><span class="note">${esc(why)}</span>` : ""
+    }</td></tr>`
+  );
+  return `<h3>Approvals recorded</h3><div class="table-scroll"><table class="data approvals"><thead><tr><th>Role</th><th>Name</th><th>Date</th><th>Revision</th><th>Fingerprint</th><th>Signature</th><th>State</th></tr></thead><tbody>${
+    rows.join("\n")
+  }</tbody></table></div>`;
+}
+
 /** Implementation cost of one design, as a small table. */
 function costTable(e: Extract<Exhibit, { type: "cost" }>): string {
   const c = e.cost;
@@ -538,6 +569,7 @@ ${parameterTable(input)}
 <table class="signoff"><thead><tr><th>Role</th><th>Name</th><th>Signature</th><th>Date</th></tr></thead><tbody>
 ${signoff}
 </tbody></table>
+${approvalsMarks[0]}${approvalsMarks[1]}
 </section>
 <section id="cautions"><h2>Cautions</h2>
 <ul>

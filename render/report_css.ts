@@ -101,6 +101,8 @@ pre.output { border-left: 3px solid ${p.muted}; background: ${p.wash}; margin: 0
 .empty { color: ${p.muted}; font-style: italic; }
 details.coefficients summary { cursor: pointer; }
 table.coefficients { width: auto; }
+table.approvals tr.holds td.verdict { color: ${p.pass}; font-weight: bold; }
+table.approvals tr.void td.verdict, table.approvals tr.bad-signature td.verdict { color: ${p.fail}; font-weight: bold; }
 table.signoff td.blank { height: 2.6rem; min-width: 9rem; }
 #cautions { font-size: 0.9rem; }
 a { color: ${p.series[2]}; }

@@ -20,10 +20,12 @@ import {
   readManifest,
   reportFingerprint,
   sha256Hex,
+  withApprovalsBlock,
 } from "../record/manifest.ts";
 import type { Provenance, Verdict, WrittenFile } from "../record/types.ts";
 import { manifestRequirements, overallVerdict, requirementRows } from "../record/verdict.ts";
-import { listingCsv, reportHtml, type ReportInput } from "./report.ts";
+import { approvalsHtml, listingCsv, reportHtml, type ReportInput } from "./report.ts";
+import { type Approval, approvalStatuses } from "../record/approvals.ts";
 import { vegaLiteToSvg, warmRenderer } from "./svg.ts";
 
 /** A short file-name stem from a title: lowercase letters, digits and dashes. */
@@ -52,6 +54,8 @@ export type ReportContent =
     inputs: string;
     /** Tells this worksheet apart from others of the same name (Manifest.worksheet). */
     worksheetId: string;
+    /** Approvals recorded beside the worksheet; shown, but not covered by the fingerprint. */
+    approvals?: Approval[];
   };
 
 /**
@@ -148,7 +152,18 @@ export async function writeReport(
     });
     const blank = sha256Hex(page);
     const fingerprint = reportFingerprint([...files, { path: pageFile, sha256: blank }], blank);
-    await write(pageFile, page.replaceAll(fingerprintPlaceholder, fingerprint));
+    const statuses = approvalStatuses(
+      content.approvals ?? [],
+      fingerprint,
+      content.worksheet.meta.revision,
+    );
+    await write(
+      pageFile,
+      withApprovalsBlock(
+        page.replaceAll(fingerprintPlaceholder, fingerprint),
+        approvalsHtml(statuses),
+      ),
+    );
     step("listings, exports, page");
     const verdict = overallVerdict(content.execution);
     const manifest = manifestOf(name, content, verdict, files, fingerprint, listings);
@@ -219,6 +234,36 @@ export function figureContext(figure: FigureExhibit, execution: ExecutionResult)
     return [{ id, at: w.at, met: check!.result.met }];
   });
   return worst.length > 0 ? { worst } : {};
+}
+
+/**
+ * Show the given approvals in an existing report's page, in place: the page
+ * and the manifest's listing of it change, the fingerprint does not (the
+ * approvals block is outside what it covers). Returns the approvals' states.
+ */
+export async function refreshApprovals(
+  reportDir: string,
+  approvals: readonly Approval[],
+): Promise<ReturnType<typeof approvalStatuses>> {
+  const manifest = await readManifest(reportDir);
+  if (manifest === undefined) throw new Error(`${reportDir} holds no report`);
+  const pagePath = join(reportDir, pageFile);
+  const page = await Deno.readTextFile(pagePath);
+  const statuses = approvalStatuses(approvals, manifest.fingerprint, manifest.revision);
+  const updated = withApprovalsBlock(page, approvalsHtml(statuses));
+  if (updated !== page) {
+    const files = manifest.files.map((f) =>
+      f.path === pageFile ? { ...f, sha256: sha256Hex(updated) } : f
+    );
+    const { digest: _digest, ...rest } = manifest;
+    const temp = `${pagePath}.${crypto.randomUUID().slice(0, 8)}`;
+    await Deno.writeTextFile(temp, updated);
+    await Deno.rename(temp, pagePath);
+    const manifestPath = join(reportDir, manifestFile);
+    await Deno.writeTextFile(`${manifestPath}.new`, manifestText({ ...rest, files }));
+    await Deno.rename(`${manifestPath}.new`, manifestPath);
+  }
+  return statuses;
 }
 
 /** SVG of each figure in an existing report, keyed by its vega-lite specification text. */

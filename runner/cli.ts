@@ -14,6 +14,9 @@ import { parseWorksheet, WorksheetError } from "./parse.ts";
 import { reportFolderName, type RunOptions, type RunSummary, runWorksheet } from "./run.ts";
 import { worksheetName } from "./provenance.ts";
 import { NoReportError, type Verification, verifyReport } from "./verify.ts";
+import { ApproveError, approveReport } from "./approve.ts";
+import { ApprovalsError } from "../record/approvals.ts";
+import { runDate } from "./provenance.ts";
 
 /** Exit codes, documented in `tapsheet run --help`. */
 export const exitCodes = { met: 0, notMet: 1, failed: 2 } as const;
@@ -497,13 +500,65 @@ async function commandVerify(args: string[]): Promise<number> {
   for (const path of v.onlyInReport) lines.push(m.notProduced(path));
   for (const path of v.onlyInRerun) lines.push(m.notInReport(path));
   for (const path of v.unchecked) lines.push(m.unchecked(path));
+  for (const a of v.approvals) lines.push(m.approval(a));
   console.log(
     v.matches
       ? `${paint("32", "matches")}  ${m.matches(file, v.reportDir, v.manifest.fingerprint)}`
       : `${paint("31", "differs")}  ${m.differs(file, v.reportDir)}`,
   );
   for (const line of lines) console.log(`  ${line}`);
-  return v.matches ? 0 : exitCodes.notMet;
+  // An approval of this revision that no longer holds fails verification, loudly.
+  const broken = v.approvals.filter((a) => a.state === "void" || a.state === "bad signature");
+  if (broken.length > 0) console.log(`${paint("31", "VOID")}  ${m.voided(broken.length)}`);
+  return v.matches && broken.length === 0 ? 0 : exitCodes.notMet;
+}
+
+/** Record an approval of a report, bound to its fingerprint (runner/approve.ts). */
+async function commandApprove(args: string[]): Promise<number> {
+  const { positional, options } = parseArgs(
+    "approve",
+    args,
+    ["--out", "--role", "--name", "--date", "--key"],
+    ["--help"],
+  );
+  if (options.has("--help")) {
+    console.log(messages.cli.approveUsage);
+    return 0;
+  }
+  const role = options.get("--role")?.at(-1);
+  const name = options.get("--name")?.at(-1);
+  if (positional.length !== 1 || !role || !name) {
+    throw new UsageError(messages.cli.approveNeeds);
+  }
+  const file = positional[0]!;
+  await collect([file]);
+  const keyFile = options.get("--key")?.at(-1);
+  let privateKeyPem: string | undefined;
+  if (keyFile !== undefined) {
+    try {
+      privateKeyPem = await Deno.readTextFile(keyFile);
+    } catch {
+      throw new UsageError(messages.cli.noKey(keyFile));
+    }
+  }
+  const date = options.get("--date")?.at(-1);
+  try {
+    const r = await approveReport({
+      worksheet: file,
+      outDir: options.get("--out")?.at(-1) ?? "reports",
+      role,
+      name,
+      date: date === undefined ? runDate() : checkedDate(date),
+      ...(privateKeyPem === undefined ? {} : { privateKeyPem }),
+    });
+    console.log(messages.cli.approved(r.approval, r.file, r.reportDir));
+    return 0;
+  } catch (error) {
+    if (error instanceof ApproveError || error instanceof ApprovalsError) {
+      throw new UsageError(error.message);
+    }
+    throw error;
+  }
 }
 
 /** Quiet time after the last change before a re-run starts, in ms. */
@@ -605,6 +660,8 @@ export async function main(args: string[]): Promise<number> {
         return await commandNew(rest);
       case "verify":
         return await commandVerify(rest);
+      case "approve":
+        return await commandApprove(rest);
       case "watch":
         return await commandWatch(rest);
       case undefined:
@@ -612,13 +669,16 @@ export async function main(args: string[]): Promise<number> {
       case "--help":
       case "-h":
         if (rest[0] === "run") console.log(messages.cli.runUsage);
+        else if (rest[0] === "approve") console.log(messages.cli.approveUsage);
         else console.log(messages.cli.usage);
         return command === undefined ? exitCodes.failed : 0;
       default:
         throw new UsageError(messages.cli.unknownCommand(command));
     }
   } catch (error) {
-    if (error instanceof UsageError || error instanceof ParamError) {
+    if (
+      error instanceof UsageError || error instanceof ParamError || error instanceof ApprovalsError
+    ) {
       console.error(`tapsheet: ${error.message}`);
       return exitCodes.failed;
     }

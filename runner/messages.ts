@@ -107,6 +107,7 @@ Usage (in the tapsheet folder; without Deno installed, start each with npx -y de
   deno task tapsheet check <worksheet.md or folder>...           type-check without running
   deno task tapsheet new <template> <file.md>                    start from a template
   deno task tapsheet verify <worksheet.md> [--out DIR]           prove a report is what it says
+  deno task tapsheet approve <worksheet.md> --role R --name N    record an approval of its report
   deno task tapsheet watch <worksheet.md> [--out DIR]            re-run on every change
   deno task tapsheet help [command]                              show help
 
@@ -162,6 +163,28 @@ Proves that the worksheet's report is exactly what the worksheet produces:
 report.pdf (from run --pdf) is a printed copy and is not checked.
 Exit code 0 when both hold, 1 when either does not, 2 on error.`,
     noReport: (manifest: string) => `No report to verify: ${manifest} is missing or unreadable`,
+    approveUsage:
+      `deno task tapsheet approve <worksheet.md> --role ROLE --name NAME [--date YYYY-MM-DD] [--key FILE] [--out DIR]
+
+Records an approval of the worksheet's report in <worksheet>.approvals.yaml
+beside the worksheet (keep it in version control): role, name, date, the
+document and revision, and the report's fingerprint. Only an intact report of
+the worksheet as it is now can be approved. The report's page shows every
+approval and whether it still holds; verify checks each one, and any change to
+the record voids it. With --key, the approval is signed with an Ed25519 private
+key (PEM; for example from 'openssl genpkey -algorithm ed25519 -out key.pem');
+the public key is recorded beside the signature.`,
+    approveNeeds:
+      "approve needs a worksheet, --role and --name. Run 'deno task tapsheet approve --help'.",
+    noKey: (path: string) => `Key file ${path} does not exist or cannot be read`,
+    approved: (
+      a: { role: string; name: string; fingerprint: string; signature?: string },
+      file: string,
+      dir: string,
+    ) =>
+      `approved  ${dir} by ${a.name} (${a.role}), fingerprint ${a.fingerprint}${
+        a.signature ? ", signed (Ed25519)" : ""
+      }\n  recorded in ${file}`,
     verify: {
       matches: (file: string, dir: string, fingerprint: string) =>
         `${file}: every file of ${dir} is as its manifest lists, and a fresh run gives the same bytes (fingerprint ${
@@ -178,6 +201,20 @@ Exit code 0 when both hold, 1 when either does not, 2 on error.`,
       notProduced: (path: string) => `${path}  is not produced by the worksheet now`,
       notInReport: (path: string) => `${path}  is produced by the worksheet but not in the report`,
       unchecked: (path: string) => `${path}  not checked: a printed copy, not part of the record`,
+      approval: (
+        s: {
+          approval: { role: string; name: string; date: string; fingerprint: string };
+          state: string;
+          why?: string;
+        },
+      ) =>
+        `approval  ${s.approval.name} (${s.approval.role}, ${s.approval.date}): ${
+          s.state === "holds" ? "holds" : s.state.toUpperCase()
+        }${s.why ? ` — ${s.why}` : ""}`,
+      voided: (n: number) =>
+        `${n} approval${n === 1 ? " no longer holds" : "s no longer hold"}: the report ${
+          n === 1 ? "it names is" : "they name is"
+        } not the one the worksheet produces now`,
     },
     watching: (dir: string) => `Watching ${dir} for changes (Ctrl-C to stop)`,
     watchRunning: (path: string) => `running ${path}…`,

@@ -2,7 +2,8 @@
 import { basename, dirname, join } from "node:path";
 import { hashOfFiles } from "./fingerprint.ts";
 import { libraryBundle } from "./library_bundle.ts";
-import { warmUpRenderer, writeReport } from "../render/write.ts";
+import { refreshApprovals, warmUpRenderer, writeReport } from "../render/write.ts";
+import { approvalsPath, readApprovals } from "../record/approvals.ts";
 import {
   checkReportFolder,
   folderIsIntact,
@@ -221,7 +222,10 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
   const existing = await readManifest(reportDir);
   const stale = options.force ? "forced" : await staleBecause(reportDir, existing, inputs);
   step("hash the inputs, check the existing report");
+  const approvals = readApprovals(approvalsPath(path));
   if (stale === undefined && existing !== undefined) {
+    // Up to date: only the approvals shown may have changed (they are outside the record).
+    await refreshApprovals(reportDir, approvals);
     const summary: RunSummary = {
       path,
       name: folderName,
@@ -279,6 +283,7 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
     execution: withDisplayPath(execution, path, name.display),
     inputs,
     worksheetId: name.identity,
+    approvals,
     provenance: {
       worksheetPath: name.display,
       worksheetSha256: sha256Hex(text),

@@ -12,8 +12,16 @@ import {
   type FolderCheck,
   folderIsIntact,
   type Manifest,
+  pageFile,
   readManifest,
+  withApprovalsBlock,
 } from "../record/manifest.ts";
+import {
+  approvalsPath,
+  type ApprovalStatus,
+  approvalStatuses,
+  readApprovals,
+} from "../record/approvals.ts";
 import { ParamError } from "./params.ts";
 import { worksheetName } from "./provenance.ts";
 import { reportFolderName, runWorksheet } from "./run.ts";
@@ -35,6 +43,11 @@ export interface Verification {
   unchecked: string[];
   /** True when the folder is intact and the fresh run gives the same bytes everywhere. */
   matches: boolean;
+  /**
+   * Every approval recorded beside the worksheet, judged against the report the
+   * worksheet produces now: it holds only for that fingerprint.
+   */
+  approvals: ApprovalStatus[];
 }
 
 /** Raised when there is no report to verify. */
@@ -60,31 +73,47 @@ export async function verifyReport(file: string, outDir: string): Promise<Verifi
     onlyInRerun: [],
     unchecked,
     matches: false,
+    approvals: [],
   };
+  const approvals = readApprovals(approvalsPath(file));
   const scratch = await Deno.makeTempDir({ prefix: "tapsheet-verify-" });
   try {
+    let fresh: string;
     try {
-      await runWorksheet(file, {
+      fresh = (await runWorksheet(file, {
         outDir: scratch,
         reportName: folderName,
         paramsFromFile: manifest.settings,
         date: manifest.provenance.date,
         force: true,
-      });
+      })).fingerprint;
     } catch (error) {
       if (!(error instanceof ParamError)) throw error;
       result.rerunProblem = error.message;
+      result.approvals = approvalStatuses(approvals, "", manifest.revision);
       return result;
     }
-    const fresh = join(scratch, folderName);
-    const rerun = await filesUnder(fresh);
+    result.approvals = approvalStatuses(approvals, fresh, manifest.revision);
+    const freshDir = join(scratch, folderName);
+    const rerun = await filesUnder(freshDir);
     const mine = present.filter((p) => !derivedFiles.includes(p));
     result.onlyInReport = mine.filter((p) => !rerun.includes(p));
     result.onlyInRerun = rerun.filter((p) => !mine.includes(p));
     for (const path of mine.filter((p) => rerun.includes(p))) {
+      // The page is compared without its approvals block: approvals are not part of the record.
+      if (path === pageFile) {
+        const [a, b] = await Promise.all([
+          Deno.readTextFile(join(reportDir, path)),
+          Deno.readTextFile(join(freshDir, path)),
+        ]);
+        if (withApprovalsBlock(a, "") !== withApprovalsBlock(b, "")) {
+          result.differFromRerun.push(path);
+        }
+        continue;
+      }
       const [a, b] = await Promise.all([
         Deno.readFile(join(reportDir, path)),
-        Deno.readFile(join(fresh, path)),
+        Deno.readFile(join(freshDir, path)),
       ]);
       if (a.length !== b.length || a.some((byte, i) => byte !== b[i])) {
         result.differFromRerun.push(path);
