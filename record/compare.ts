@@ -659,10 +659,20 @@ export function seriesDifference(was: FigureSeries, now: FigureSeries): FigureSe
   return { name: now.name, x, y };
 }
 
-function sameMask(a: readonly MaskSegment[], b: readonly MaskSegment[]): boolean {
-  const key = (m: MaskSegment) =>
-    [m.from, m.to, m.level, m.toLevel ?? m.level, m.bound, m.label ?? ""].join(" ");
-  return a.length === b.length && a.every((m, i) => key(m) === key(b[i]!));
+/**
+ * Whether two masks draw the same limits: the same segments up to rounding,
+ * with the same labels when both carry labels (a mask read from an older
+ * spec's drawing has none).
+ */
+export function sameMask(a: readonly MaskSegment[], b: readonly MaskSegment[]): boolean {
+  const labelled = (m: readonly MaskSegment[]) => m.some((s) => s.label !== undefined);
+  const labels = labelled(a) && labelled(b);
+  return a.length === b.length && a.every((m, i) => {
+    const n = b[i]!;
+    return m.bound === n.bound && same(m.from, n.from) && same(m.to, n.to) &&
+      same(m.level, n.level) && same(m.toLevel ?? m.level, n.toLevel ?? n.level) &&
+      (!labels || (m.label ?? "") === (n.label ?? ""));
+  });
 }
 
 /** Two matched figures, series paired by name, then by order. */

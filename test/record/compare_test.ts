@@ -18,6 +18,7 @@ import {
   limitMove,
   matchFigures,
   pairUp,
+  sameMask,
   seriesDifference,
 } from "../../record/compare.ts";
 import { assertClose } from "../_tolerance.ts";
@@ -389,6 +390,26 @@ Deno.test("compareFigure: series paired, largest change located, the new mask ke
   assert.deepEqual(c.mask, mask);
   assert.equal(c.maskChanged, true);
   assert.equal(compareFigure(now, now, "title").maskChanged, false);
+});
+
+Deno.test("sameMask: limits up to rounding; labels only when both masks carry them", () => {
+  const labelled = [
+    { from: 0, to: 300, level: -1, bound: "lower" as const, label: "IDL-SRS-1" },
+    { from: 900, to: 2000, level: -40, bound: "upper" as const, label: "IDL-SRS-2" },
+  ];
+  const drawn = labelled.map(({ label: _, ...m }) => m); // as read from an older spec
+  assert.equal(sameMask(labelled, drawn), true);
+  assert.equal(sameMask(labelled, labelled.map((m) => ({ ...m, level: m.level + 1e-12 }))), true);
+  assert.equal(
+    sameMask(labelled, labelled.map((m, i) => (i === 1 ? { ...m, level: -45 } : m))),
+    false,
+  );
+  assert.equal(
+    sameMask(labelled, labelled.map((m, i) => (i === 0 ? { ...m, label: "X" } : m))),
+    false,
+  );
+  assert.equal(sameMask(labelled, labelled.slice(1)), false);
+  assert.equal(sameMask(drawn, drawn.map((m) => ({ ...m, bound: "upper" as const }))), false);
 });
 
 Deno.test("identical records: nothing changed, nothing got worse", () => {
