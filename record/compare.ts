@@ -33,8 +33,8 @@ import type {
 export interface SideFacts {
   /** How the user named the side: a report folder, `w.md`, or `w.md@REV (abc1234)`. */
   label: string;
-  /** The report folder the side was read from. */
-  dir: string;
+  /** The report folder the side was read from (absent when it was a temporary one). */
+  dir?: string;
   worksheet: string;
   title: string;
   document: string;

@@ -42,6 +42,10 @@ export async function sideArgument(arg: string): Promise<SideArgument> {
   if (info?.isDirectory) return { kind: "folder", path: arg };
   if (info?.isFile && /\.md$/i.test(arg)) return { kind: "worksheet", path: arg };
   const m = /^(.+?\.md)@(.+)$/i.exec(arg);
+  // A revision is never an option of git's: "w.md@--output=x" is refused, not passed on.
+  if (m && m[2]!.startsWith("-")) {
+    throw new CompareInputError(messages.compare.unknownRevision(m[2]!));
+  }
   if (m) return { kind: "revision", path: m[1]!, revision: m[2]! };
   throw new CompareInputError(messages.compare.notFound(arg));
 }
@@ -183,6 +187,8 @@ export interface PreparedSide {
   label: string;
   record: ReportRecord;
   notes: string[];
+  /** True when the side was run into the scratch folder (its folder is gone afterwards). */
+  ran: boolean;
 }
 
 /**
@@ -216,7 +222,7 @@ export async function prepareSide(
         messages.compare.sideAltered(side, what.path, files.join(", ") || "manifest.json"),
       );
     }
-    return { label: what.path, record, notes };
+    return { label: what.path, record, notes, ran: false };
   }
   let worksheet = what.path;
   let date = runDate();
@@ -238,7 +244,7 @@ export async function prepareSide(
     const p = summary.problem;
     notes.push(messages.compare.sideIncomplete(side, label, `${p.path}:${p.line}`, p.message));
   }
-  return { label, record: await readReportRecord(summary.reportDir), notes };
+  return { label, record: await readReportRecord(summary.reportDir), notes, ran: true };
 }
 
 /** What `compare` did. */
@@ -282,6 +288,8 @@ export async function compareSides(
     const was = await prepareSide(oldArg, "old", join(scratch, "old"), options.say);
     const now = await prepareSide(newArg, "new", join(scratch, "new"), options.say);
     const comparison = compareRecords(was.record, now.record, { old: was.label, new: now.label });
+    if (was.ran) delete comparison.old.dir;
+    if (now.ran) delete comparison.new.dir;
     const outDir = options.outDir ?? join("reports", `${reportStem(now.record)}-comparison`);
     if (options.outDir === undefined) await checkOut(outDir);
     const dir = await writeComparison(outDir, comparison);

@@ -158,6 +158,10 @@ Deno.test("sideArgument: folder, working copy, worksheet at a revision, or a mis
       path: "sheets/w.md",
       revision: "HEAD@{2}",
     });
+    await assert.rejects(
+      () => sideArgument("w.md@--output=/tmp/x"),
+      (e: Error) => e instanceof CompareInputError && /no revision '--output/.test(e.message),
+    );
     for (const bad of [join(dir, "missing.md"), join(dir, "notes.txt"), "w.md@"]) {
       await assert.rejects(
         () => sideArgument(bad),
@@ -355,6 +359,7 @@ Deno.test("compare end to end: revisions of a worksheet in git, and the working 
     assert.match(html, /2 things a requirement covers got worse/);
     const json = JSON.parse(await Deno.readTextFile(join(out, "fewer", "comparison.json")));
     assert.equal(json.gotWorse, true);
+    assert.equal(json.old.dir, undefined, "a side run in a temporary folder names no folder");
 
     // The working copy is HEAD: a fresh run of it is the same record.
     const same = await tapsheet(["compare", "w.md@HEAD", "w.md", "--out", join(out, "same")], {}, {
