@@ -528,6 +528,7 @@ export function figureToVegaLite(figure: FigureExhibit, context: FigureContext =
     height,
     autosize: { type: "fit", contains: "padding" },
     config,
+    usermeta: { figure: figureFacts(figure) },
   };
   if (square) {
     spec.layer = poleZeroLayers(figure, titleText(xTitle), titleText(yTitle));
@@ -718,6 +719,36 @@ export function figureToVegaLite(figure: FigureExhibit, context: FigureContext =
     spec.resolve = { scale: { color: "independent" } };
   }
   return spec;
+}
+
+/**
+ * What the figure exhibit says besides its series, kept in the spec's
+ * `usermeta` (vega ignores it), so that a reader of the record (`compare`)
+ * knows the figure's kind, its whole title and its mask in the exhibit's own
+ * units without working them back out of the drawing.
+ */
+export interface FigureFacts {
+  kind: FigureKind;
+  title: string;
+  xLabel?: string;
+  yLabel?: string;
+  xScale?: "linear" | "log";
+  /** The sample rate the figure's frequencies are divided by (x values in the spec are f / fs). */
+  normaliseTo?: number;
+  yDomain?: [number, number];
+  /** The mask as the worksheet gave it: x in Hz (or s), not divided by normaliseTo. */
+  mask?: MaskSegment[];
+}
+
+function figureFacts(figure: FigureExhibit): FigureFacts {
+  const facts: FigureFacts = { kind: figure.kind, title: figure.title };
+  if (figure.xLabel !== undefined) facts.xLabel = figure.xLabel;
+  if (figure.yLabel !== undefined) facts.yLabel = figure.yLabel;
+  if (figure.xScale !== undefined) facts.xScale = figure.xScale;
+  if (figure.normaliseTo !== undefined) facts.normaliseTo = figure.normaliseTo;
+  if (figure.yDomain !== undefined) facts.yDomain = figure.yDomain;
+  if (figure.mask !== undefined && figure.mask.length > 0) facts.mask = figure.mask;
+  return facts;
 }
 
 /** Impulse and step x axes reach half a sample (at least 1 % of the span) past the ends. */

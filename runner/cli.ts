@@ -1,4 +1,4 @@
-// The command line: tapsheet run | check | new | verify | help.
+// The command line: tapsheet run | check | new | verify | watch | compare | help.
 import { basename, dirname, join, resolve } from "node:path";
 import { pathToFileURL } from "node:url";
 import { parse as parseYaml } from "yaml";
@@ -17,6 +17,7 @@ import { NoReportError, type Verification, verifyReport } from "./verify.ts";
 import { ApproveError, approveReport } from "./approve.ts";
 import { ApprovalsError } from "../record/approvals.ts";
 import { runDate } from "./provenance.ts";
+import { changeLines, CompareInputError, compareSides, worseLines } from "./compare.ts";
 
 /** Exit codes, documented in `tapsheet run --help`. */
 export const exitCodes = { met: 0, notMet: 1, failed: 2 } as const;
@@ -561,6 +562,49 @@ async function commandApprove(args: string[]): Promise<number> {
   }
 }
 
+/**
+ * Compare two design records (report folders, worksheets, or worksheets at a
+ * git revision) and write a comparison page (runner/compare.ts). Exit code 1
+ * when anything a requirement covers got worse (record/compare.ts says what
+ * that means), so CI can gate a merge on it.
+ */
+async function commandCompare(args: string[]): Promise<number> {
+  const { positional, options } = parseArgs("compare", args, ["--out"], ["--help"]);
+  if (options.has("--help") || positional.length !== 2) {
+    console.log(messages.compare.usage);
+    return options.has("--help") ? 0 : exitCodes.failed;
+  }
+  const [oldArg, newArg] = positional as [string, string];
+  const outDir = options.get("--out")?.at(-1);
+  let result: Awaited<ReturnType<typeof compareSides>>;
+  try {
+    result = await compareSides(oldArg, newArg, {
+      ...(outDir === undefined ? {} : { outDir }),
+      say: (line) => console.error(line),
+    });
+  } catch (error) {
+    if (error instanceof CompareInputError) throw new UsageError(error.message);
+    throw error;
+  }
+  const { comparison: c, dir, notes } = result;
+  for (const note of notes) console.error(`  ${note}`);
+  const worse = worseLines(c.worse);
+  const changes = changeLines(c);
+  const m = messages.compare;
+  const word = worse.length > 0
+    ? paint("31", m.headline.worse)
+    : changes.length > 0
+    ? paint("32", m.headline.changed)
+    : paint("32", m.headline.unchanged);
+  console.log(
+    `${word}  ${c.old.label} → ${c.new.label}  ${m.counts(worse.length, changes.length)}  ${
+      m.wrote(join(dir, "index.html"))
+    }`,
+  );
+  for (const line of [...worse, ...changes]) console.log(`  ${line}`);
+  return worse.length > 0 ? exitCodes.notMet : 0;
+}
+
 /** Quiet time after the last change before a re-run starts, in ms. */
 const watchDebounceMs = 150;
 
@@ -664,12 +708,15 @@ export async function main(args: string[]): Promise<number> {
         return await commandApprove(rest);
       case "watch":
         return await commandWatch(rest);
+      case "compare":
+        return await commandCompare(rest);
       case undefined:
       case "help":
       case "--help":
       case "-h":
         if (rest[0] === "run") console.log(messages.cli.runUsage);
         else if (rest[0] === "approve") console.log(messages.cli.approveUsage);
+        else if (rest[0] === "compare") console.log(messages.compare.usage);
         else console.log(messages.cli.usage);
         return command === undefined ? exitCodes.failed : 0;
       default:

@@ -109,6 +109,7 @@ Usage (in the tapsheet folder; without Deno installed, start each with npx -y de
   deno task tapsheet verify <worksheet.md> [--out DIR]           prove a report is what it says
   deno task tapsheet approve <worksheet.md> --role R --name N    record an approval of its report
   deno task tapsheet watch <worksheet.md> [--out DIR]            re-run on every change
+  deno task tapsheet compare <old> <new> [--out DIR]             what changed between two records
   deno task tapsheet help [command]                              show help
 
 Run 'deno task tapsheet <command> --help' for the options of a command.`,
@@ -254,5 +255,116 @@ Stop with Ctrl-C.`,
     badNumber: (name: string, text: string) =>
       `Option '${name}' needs a positive number, got '${text}'`,
     badDate: (text: string) => `--date needs a real calendar date as YYYY-MM-DD, got '${text}'`,
+  },
+  compare: {
+    usage: `deno task tapsheet compare <old> <new> [--out DIR]
+
+Compares two design records of a worksheet and writes a comparison page
+(DIR/index.html, its figures, and comparison.json). Each side is one of:
+  reports/<name>          a report folder (one written by 'run')
+  worksheet.md            the working copy, run now in the sandbox
+  worksheet.md@REV        the worksheet and its data/ folder as git has them at
+                          revision REV (HEAD~1, a tag, a commit), run in the sandbox
+Worksheets are run with their own settings into a temporary folder, which is
+removed afterwards.
+
+It names what changed: title, document, revision and settings; requirements
+added, removed or with another limit; verdicts; each coefficient listing
+(length, layout, largest change of a value, of a code in LSBs); implementation
+costs; exports; and overlays each magnitude, passband, phase and group-delay
+figure of the old record on the new, with the new mask and new − old beneath.
+
+Got worse, for the exit code, means: a requirement removed; a limit made looser
+(or changed in relation or unit); a requirement that was met is not met or no
+longer checked on a design; one that was checked and not met is no longer
+checked; or one not met on both sides falls further short of its limit.
+
+Options:
+  --out DIR   folder for the comparison (default: reports/<name>-comparison);
+              an existing folder must be empty or an earlier comparison
+  --help      show this help
+
+Exit codes:
+  0  nothing a requirement covers got worse
+  1  something a requirement covers got worse
+  2  bad command-line use, or a side that cannot be read or fetched`,
+    notFound: (arg: string) =>
+      `'${arg}' is neither a report folder nor a worksheet; give reports/<name>, worksheet.md or worksheet.md@REV`,
+    notAReport: (dir: string) =>
+      `${dir} is a folder but not a report: it has no readable manifest.json (write one with 'deno task tapsheet run')`,
+    noGit: "Comparing a worksheet at a revision needs git, which is not installed",
+    gitFailed: (what: string, detail: string) => `git could not ${what}: ${detail}`,
+    folderMissing: (dir: string) =>
+      `The folder ${dir} does not exist here, so git cannot be asked about it`,
+    notInRepository: (path: string) => `${path} is not inside a git repository`,
+    unknownRevision: (rev: string) => `git knows no revision '${rev}'`,
+    notAtRevision: (path: string, rev: string) => `${path} does not exist at revision ${rev}`,
+    linkAtRevision: (path: string, rev: string) =>
+      `${path} is a symbolic link at revision ${rev}; the sandbox reads only plain files under data/`,
+    outIsFile: (dir: string) => `--out must name a folder for the comparison, but ${dir} is a file`,
+    outNotComparison: (dir: string) =>
+      `${dir} holds files but no comparison.json; choose an empty or new folder for --out (it is replaced whole)`,
+    running: (label: string) => `running ${label}…`,
+    sideIncomplete: (side: string, label: string, where: string, message: string) =>
+      `the ${side} side (${label}) did not run to the end: ${where}: ${message}`,
+    sideAltered: (side: string, dir: string, files: string) =>
+      `the ${side} report ${dir} is not as its manifest lists (${files}); compared as it is`,
+    unreadable: (side: string, path: string, reason: string) =>
+      `${side} ${path} could not be read: ${reason}`,
+    headline: {
+      unchanged: "unchanged",
+      changed: "changed",
+      worse: "worse",
+    },
+    counts: (worse: number, changes: number) =>
+      `${worse > 0 ? `${worse} got worse, ` : ""}${changes} change${changes === 1 ? "" : "s"}`,
+    worse: {
+      "met to not met": (row: string) => `got worse: ${row} was met and is not met now`,
+      "met to not checked": (row: string) => `got worse: ${row} was met and is no longer checked`,
+      "no longer checked": (row: string) =>
+        `got worse: ${row} was not met and is no longer checked`,
+      "shortfall grew": (row: string) => `got worse: ${row} falls further short of its limit`,
+      "removed": (row: string) => `got worse: ${row} is no longer declared`,
+      "limit looser": (row: string) => `got worse: ${row} has a looser limit`,
+      "limit not comparable": (row: string) =>
+        `got worse: ${row} changed its relation or unit, so its limit cannot be shown to be as strict`,
+    },
+    identity: (field: string, old: string, now: string) => `${field}: ${old} → ${now}`,
+    settingChanged: (name: string, old: string, now: string) => `setting ${name}: ${old} → ${now}`,
+    settingAdded: (name: string, value: string) => `setting ${name} added: ${value}`,
+    settingRemoved: (name: string, value: string) => `setting ${name} removed (was ${value})`,
+    requirementAdded: (id: string, text: string, limit: string) =>
+      `requirement ${id} added: ${text}, ${limit}`,
+    requirementRemoved: (id: string, text: string, limit: string) =>
+      `requirement ${id} removed: ${text}, ${limit}`,
+    requirementLimit: (id: string, old: string, now: string, move: string) =>
+      `requirement ${id} limit: ${old} → ${now} (${move})`,
+    requirementText: (id: string, old: string, now: string) =>
+      `requirement ${id} text: "${old}" → "${now}"`,
+    verdict: (row: string, old: string, now: string, margins: string) =>
+      `${row}: ${old} → ${now}${margins}`,
+    designPaired: (old: string, now: string) =>
+      `design "${old}" is compared with "${now}" (no design of that name; paired by order)`,
+    shortfall: (row: string, margins: string) => `${row}: not met, further short${margins}`,
+    listingAdded: (name: string, count: number) => `listing ${name} added (${count} values)`,
+    listingRemoved: (name: string, count: number) => `listing ${name} removed (had ${count})`,
+    listingShape: (name: string, what: string) => `listing ${name}: ${what}`,
+    listingValues: (name: string, largest: string, at: string, changed: number, count: number) =>
+      `listing ${name}: largest change of a value ${largest} at ${at} (${changed} of ${count} changed)`,
+    listingCodes: (name: string, lsb: number, at: string, changed: number, format: string) =>
+      `listing ${name}: largest change of a code ${lsb} LSB${
+        lsb === 1 ? "" : "s"
+      } of ${format} at ${at} (${changed} code${changed === 1 ? "" : "s"} changed)`,
+    listingCodesNotCompared: (name: string, why: string) =>
+      `listing ${name}: codes not compared, ${why}`,
+    costAdded: (name: string) => `cost ${name} added`,
+    costRemoved: (name: string) => `cost ${name} removed`,
+    costChanged: (name: string, fields: string) => `cost ${name}: ${fields}`,
+    exportChange: (path: string, change: string) => `export ${path} ${change}`,
+    figure: (title: string, delta: string, at: string, series: string) =>
+      `figure ${title}: largest change ${delta} at ${at}${series}`,
+    figureMask: (title: string) => `figure ${title}: its mask changed`,
+    figureOnly: (title: string, side: string) => `figure ${title} only in the ${side} record`,
+    wrote: (path: string) => `→ ${path}`,
   },
 } as const;
