@@ -15,6 +15,8 @@
 // Not "worse": a stricter limit by itself, a smaller margin that stays met, a
 // new requirement (met or not), a row that was never checked before, and any
 // change outside the requirements (coefficients, cost, figures, exports).
+import { interpolate } from "./series.ts";
+export { interpolate };
 import type { MaskSegment } from "../lib/types.ts";
 import type { LimitRelation } from "../lib/verify/requirement.ts";
 import type { ManifestListing, ManifestRequirement } from "./manifest.ts";
@@ -617,22 +619,6 @@ function sortedFinite(s: FigureSeries): { x: number[]; y: number[] } {
   const order = s.x.map((_, i) => i).filter((i) => Number.isFinite(s.x[i]!));
   order.sort((i, j) => s.x[i]! - s.x[j]!);
   return { x: order.map((i) => s.x[i]!), y: order.map((i) => s.y[i]!) };
-}
-
-/** Linear interpolation of sorted points at `at`; NaN outside them or next to a gap (NaN y). */
-export function interpolate(x: readonly number[], y: readonly number[], at: number): number {
-  let lo = 0;
-  let hi = x.length - 1;
-  if (hi < 0 || !(at >= x[0]! && at <= x[hi]!)) return NaN;
-  while (hi - lo > 1) {
-    const mid = (lo + hi) >> 1;
-    if (x[mid]! <= at) lo = mid;
-    else hi = mid;
-  }
-  if (x[lo] === at) return y[lo]!;
-  if (x[hi] === at) return y[hi]!;
-  const t = (at - x[lo]!) / (x[hi]! - x[lo]!);
-  return y[lo]! + t * (y[hi]! - y[lo]!);
 }
 
 /**

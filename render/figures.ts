@@ -1,4 +1,5 @@
 // Figure exhibits → vega-lite specifications in tapsheet's theme.
+import { interpolate } from "../record/series.ts";
 import type { MaskSegment } from "../lib/types.ts";
 import type { FigureExhibit, FigureKind } from "../record/types.ts";
 import { differencePanel, figureSize, figureType, fontStack, palette } from "./theme.ts";
@@ -340,22 +341,6 @@ function textLayer(p: Placement, text: string, colour: string, x: Spec, y: Spec)
 // ---------------------------------------------------------------------------
 // Series helpers.
 
-/** The value of a series at `at` by linear interpolation; NaN outside it or next to a gap. */
-function valueAt(x: number[], y: number[], at: number): number {
-  let lo = 0;
-  let hi = x.length - 1;
-  if (hi < 0 || !(at >= x[0]! && at <= x[hi]!)) return NaN;
-  while (hi - lo > 1) {
-    const mid = (lo + hi) >> 1;
-    if (x[mid]! <= at) lo = mid;
-    else hi = mid;
-  }
-  if (x[lo] === at) return y[lo]!;
-  if (x[hi] === at) return y[hi]!;
-  const t = (at - x[lo]!) / (x[hi]! - x[lo]!);
-  return y[lo]! + t * (y[hi]! - y[lo]!);
-}
-
 /** The points of a series in increasing x. */
 function sortedByX(x: number[], y: number[]): { x: number[]; y: number[] } {
   let sorted = true;
@@ -659,7 +644,7 @@ export function figureToVegaLite(figure: FigureExhibit, context: FigureContext =
     : { x: [], y: [] };
   const worst = (context.worst ?? []).flatMap((w) => {
     const at = w.at / scale;
-    const value = valueAt(first.x, first.y, at);
+    const value = interpolate(first.x, first.y, at);
     const onAxis = at >= xDomain[0] && at <= xDomain[1] && (!logX || at > 0);
     return onAxis && Number.isFinite(value) ? [{ ...w, at, value }] : [];
   });
@@ -908,7 +893,7 @@ function differenceLayers(
     const gd: number[] = [];
     refX.forEach((at, i) => {
       if (o.logX && !(at > 0)) return;
-      const other = sorted ? valueAt(sorted.x, sorted.y, at) : s.y[i]!;
+      const other = sorted ? interpolate(sorted.x, sorted.y, at) : s.y[i]!;
       const ref = reference.y[i]!;
       gx.push(at);
       gd.push(seen(ref) && seen(other) ? other - ref : NaN);

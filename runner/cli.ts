@@ -674,7 +674,8 @@ async function commandWatch(args: string[]): Promise<number> {
   let timer: ReturnType<typeof setTimeout> | undefined;
   const relevant = (path: string) => {
     const p = resolve(path);
-    return p === worksheet || p.startsWith(data + "/");
+    // data/ itself too: a file written into a folder just made can come before its watch.
+    return p === worksheet || p === data || p.startsWith(data + "/");
   };
 
   start();

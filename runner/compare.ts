@@ -4,6 +4,7 @@
 // same layout); worksheets are run in the sandbox into a temporary output
 // folder. The records are then compared by record/compare.ts and the page
 // written by render/compare_write.ts.
+import { makeScratchFolder } from "./scratch.ts";
 import { basename, dirname, join, relative, resolve, sep } from "node:path";
 import { checkReportFolder, folderIsIntact } from "../record/manifest.ts";
 import {
@@ -155,33 +156,6 @@ export async function fetchAtRevision(
 }
 
 const scratchPrefix = "tapsheet-compare-";
-let swept = false;
-
-/** Remove scratch folders left by a compare that was killed (its process is gone). */
-function sweepStaleScratch(): void {
-  if (swept) return;
-  swept = true;
-  const tmp = Deno.env.get("TMPDIR") ?? "/tmp";
-  try {
-    Deno.statSync("/proc/self");
-  } catch {
-    return; // no /proc: cannot tell a live compare from a dead one
-  }
-  try {
-    for (const entry of Deno.readDirSync(tmp)) {
-      const m = new RegExp(`^${scratchPrefix}(\\d+)-`).exec(entry.name);
-      if (!m || Number(m[1]) === Deno.pid) continue;
-      try {
-        Deno.statSync(`/proc/${m[1]}`);
-      } catch {
-        Deno.removeSync(join(tmp, entry.name), { recursive: true });
-      }
-    }
-  } catch {
-    // an unreadable temporary folder: nothing to sweep
-  }
-}
-
 /** One side, read: its label, its record, and anything the user should be told about it. */
 export interface PreparedSide {
   label: string;
@@ -282,8 +256,7 @@ export async function compareSides(
   await sideArgument(oldArg);
   await sideArgument(newArg);
   if (options.outDir !== undefined) await checkOut(options.outDir);
-  sweepStaleScratch();
-  const scratch = await Deno.makeTempDir({ prefix: `${scratchPrefix}${Deno.pid}-` });
+  const scratch = await makeScratchFolder(scratchPrefix);
   try {
     const was = await prepareSide(oldArg, "old", join(scratch, "old"), options.say);
     const now = await prepareSide(newArg, "new", join(scratch, "new"), options.say);

@@ -11,6 +11,7 @@ import { checkedExhibit, ProtocolError } from "./exhibit_rules.ts";
 import { decodeNumbers, encodeNumbers } from "./harness_protocol.ts";
 import type { HarnessInput, HarnessMessage } from "./harness_protocol.ts";
 import { messages } from "./messages.ts";
+import { makeScratchFolder } from "./scratch.ts";
 import { disagreement, RequirementError, resolveRequirements } from "./requirements.ts";
 import type {
   BlockResult,
@@ -123,8 +124,7 @@ export async function executeWorksheet(
   const access = await readAccess(worksheet);
   if ("problem" in access) return rejected(access.problem);
 
-  sweepStaleRunFolders();
-  const tempDir = await Deno.makeTempDir({ prefix: `${runFolderPrefix}${Deno.pid}-` });
+  const tempDir = await makeScratchFolder(runFolderPrefix);
   try {
     const moduleUrl = await writeModule(tempDir, worksheet, assembly.module, options);
     const child = startChild(tempDir, access, limits, options.libraryModule);
@@ -201,36 +201,6 @@ async function readAccess(worksheet: Worksheet): Promise<ReadAccess | { problem:
 
 function isInside(path: string, folder: string): boolean {
   return path === folder || path.startsWith(folder.endsWith(sep) ? folder : folder + sep);
-}
-
-let swept = false;
-
-/**
- * Remove run folders left by runners that were killed (SIGKILL cannot be
- * caught): their names carry the runner's process id. Once per process.
- */
-function sweepStaleRunFolders(): void {
-  if (swept) return;
-  swept = true;
-  const tmp = Deno.env.get("TMPDIR") ?? "/tmp";
-  try {
-    Deno.statSync("/proc/self");
-  } catch {
-    return; // no /proc: cannot tell a live runner from a dead one
-  }
-  try {
-    for (const entry of Deno.readDirSync(tmp)) {
-      const m = new RegExp(`^${runFolderPrefix}(\\d+)-`).exec(entry.name);
-      if (!m || Number(m[1]) === Deno.pid) continue;
-      try {
-        Deno.statSync(`/proc/${m[1]}`);
-      } catch {
-        Deno.removeSync(join(tmp, entry.name), { recursive: true });
-      }
-    }
-  } catch {
-    // an unreadable temporary folder: nothing to sweep
-  }
 }
 
 /** Write the module and the runner's own import map; returns the module's URL. */
