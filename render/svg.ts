@@ -46,12 +46,13 @@ export async function warmRenderer(spec: Record<string, unknown>): Promise<void>
  */
 export function renumberIds(svg: string): string {
   const map = new Map<string, string>();
+  const counts = new Map<string, number>();
   for (const m of svg.matchAll(/\bid="([A-Za-z_-]+)(\d+)"/g)) {
-    const key = `${m[1]}${m[2]}`;
-    if (!map.has(key)) {
-      const n = [...map.keys()].filter((k) => k.startsWith(m[1]!) && /\d+$/.test(k)).length + 1;
-      map.set(key, `${m[1]}${n}`);
-    }
+    const [id, prefix] = [`${m[1]}${m[2]}`, m[1]!];
+    if (map.has(id)) continue;
+    const n = (counts.get(prefix) ?? 0) + 1;
+    counts.set(prefix, n);
+    map.set(id, `${prefix}${n}`);
   }
   if (map.size === 0) return svg;
   return svg.replace(

@@ -254,6 +254,10 @@ export const sheet = {
   get settings(): Readonly<Record<string, ParamValue>> {
     return parameters;
   },
+  /** An earlier name of {@link sheet.settings}: says so. @deprecated use sheet.settings */
+  get params(): never {
+    throw new TypeError("sheet.params is now called sheet.settings (front matter 'settings:')");
+  },
   /** A number setting. @throws {RangeError|TypeError} when missing or not a number. */
   number(name: string): number {
     const v = param(name);

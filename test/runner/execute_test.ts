@@ -43,3 +43,9 @@ Deno.test("execute: a missing parameter is an error at its line", async () => {
   assert.equal(r.problem?.line, 7);
   assert.match(r.problem!.message, /Setting 'nope' is not declared/);
 });
+
+Deno.test("execute: the old name sheet.params says what it is called now", async () => {
+  const r = await run(`import { sheet } from "tapsheet/sheet";\nconsole.log(sheet.params);`);
+  assert.equal(r.outcome, "error");
+  assert.match(r.problem!.message, /sheet\.params is now called sheet\.settings/);
+});
