@@ -111,8 +111,9 @@ console.log(
     loop.toFixed(2)
   }×`,
 );
+// Issue 15's target: the whole command in at most 0.25 of the script's time (4× faster).
 console.log(
-  `target: warm, at least 3× — whole command ${ratio >= 3 ? "met" : "not met"}, edit loop ${
-    loop >= 3 ? "met" : "not met"
-  }`,
+  `our time ÷ theirs: whole command ${(1 / ratio).toFixed(2)}, edit loop ${
+    (1 / loop).toFixed(2)
+  }; target ≤ 0.25 for the whole command: ${1 / ratio <= 0.25 ? "met" : "not met"}`,
 );
