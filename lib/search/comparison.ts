@@ -97,7 +97,8 @@ export function searchComparisonTable(result: SearchResult): ComparisonTable {
     }
     if (c.worst !== undefined) {
       const r = c.worst.result;
-      row.worstMargin = `${r.name}${r.id === undefined ? "" : ` (${r.id})`}: ${signed(r.margin)}${
+      // A requirement is named by its id when it has one (the table stays narrow).
+      row.worstMargin = `${r.id ?? r.name}: ${signed(r.margin)}${
         unitSuffix(r.unit)
       } (${c.worst.arithmetic})`;
     }
@@ -152,7 +153,7 @@ function shortfall(
   const side = r.relation === "atMost" ? "at most" : "at least";
   const by = Number.isFinite(r.margin) ? `${show(Math.abs(r.margin))}${u} short` : "not reached";
   const achieved = Number.isFinite(r.achieved) ? `${show(r.achieved)}${u}` : String(r.achieved);
-  return `${r.name}${r.id === undefined ? "" : ` (${r.id})`}: ${achieved} against ${side} ${
+  return `${r.id ?? r.name}: ${achieved} against ${side} ${
     show(r.limit)
   }${u}, ${by} (${arithmetic})`;
 }
