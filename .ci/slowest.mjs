@@ -52,13 +52,14 @@ const hung = [
       .filter((n) => !finishedNames.has(n)),
   ),
 ];
-if (hung.length > 0) {
+// Deno's closing line looks like "ok | 12 passed (3 steps) | 0 failed (1s)".
+const summary = [...log.matchAll(/^(?:ok|FAILED) \| (\d+) passed.*?\| (\d+) failed/gm)].at(-1);
+// With a closing line every test finished (a "..." line can be split by other output).
+if (!summary && hung.length > 0) {
   console.log("\nStill running when the run ended:");
   for (const name of hung) console.log(`  ${name}`);
 }
 
-// Deno's closing line looks like "ok | 12 passed (3 steps) | 0 failed (1s)".
-const summary = [...log.matchAll(/^(?:ok|FAILED) \| (\d+) passed.*?\| (\d+) failed/gm)].at(-1);
 let passed, failed;
 if (summary) {
   [passed, failed] = [Number(summary[1]), Number(summary[2])];
