@@ -232,6 +232,21 @@ export interface ImplementationCostFigures {
   decimation: number;
 }
 
+/** The numeric fields of {@link ImplementationCostFigures} that every cost has. */
+export const costNumberFields = [
+  "multipliesPerOutput",
+  "addsPerOutput",
+  "multipliesPerSecond",
+  "stateWords",
+  "coefficientWords",
+  "memoryWords",
+  "latencySamples",
+  "latencySeconds",
+  "inputRate",
+  "outputRate",
+  "decimation",
+] as const;
+
 /** The implementation cost of one design. */
 export interface CostExhibit {
   type: "cost";

@@ -13,7 +13,7 @@ import type {
   Worsening,
 } from "../record/compare.ts";
 import { defaultDesign, type FigureExhibit, type ParamValue } from "../record/types.ts";
-import { escapeHtml as esc } from "./html.ts";
+import { escapeHtml as esc, pageHead } from "./html.ts";
 import { formatNumber } from "./report.ts";
 import { reportCss } from "./report_css.ts";
 
@@ -441,17 +441,9 @@ export function comparisonHtml(
       )
         .join("")
     }</ul>`;
-  return `<!DOCTYPE html>
-<html lang="en">
-<head>
-<meta charset="utf-8">
-<meta name="viewport" content="width=device-width, initial-scale=1">
-<meta http-equiv="Content-Security-Policy" content="default-src 'none'; img-src 'self' file: data:; style-src 'unsafe-inline'; base-uri 'none'; form-action 'none'">
-<title>Comparison: ${esc(c.new.title)}</title>
-<style>${reportCss(identity)}${extraCss}</style>
-</head>
-<body>
-<header class="identity">
+  return `${
+    pageHead(`Comparison: ${c.new.title}`, `${reportCss(identity)}${extraCss}`)
+  }<header class="identity">
 <p class="kind">Revision comparison</p>
 <h1>${esc(c.new.title)}</h1>
 <dl class="facts">

@@ -46,3 +46,25 @@ const prose = new Marked({
 export function proseToHtml(markdown: string): string {
   return prose.parse(markdown, { async: false }) as string;
 }
+
+/**
+ * The start of every page tapsheet writes, to the opening <body>: no scripts
+ * (the Content-Security-Policy forbids them), styles inline, images only from
+ * the report's own folder when `images` is true. `title` is escaped here;
+ * `css` is the stylesheet text as is.
+ */
+export function pageHead(title: string, css: string, images = true): string {
+  return `<!DOCTYPE html>
+<html lang="en">
+<head>
+<meta charset="utf-8">
+<meta name="viewport" content="width=device-width, initial-scale=1">
+<meta http-equiv="Content-Security-Policy" content="default-src 'none';${
+    images ? " img-src 'self' file: data:;" : ""
+  } style-src 'unsafe-inline'; base-uri 'none'; form-action 'none'">
+<title>${escapeHtml(title)}</title>
+<style>${css}</style>
+</head>
+<body>
+`;
+}

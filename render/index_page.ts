@@ -1,6 +1,6 @@
 // reports/index.html: every report in the output folder with its verdict.
 import { join } from "node:path";
-import { escapeHtml as esc } from "./html.ts";
+import { escapeHtml as esc, pageHead } from "./html.ts";
 import { reportCss } from "./report_css.ts";
 import { type Manifest, readManifest } from "../record/manifest.ts";
 
@@ -25,21 +25,17 @@ export function reportsIndexHtml(manifests: Manifest[]): string {
       verdictText[m.verdict] ?? esc(m.verdict)
     }</td></tr>`;
   });
-  return `<!DOCTYPE html>
-<html lang="en">
-<head>
-<meta charset="utf-8">
-<meta name="viewport" content="width=device-width, initial-scale=1">
-<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; base-uri 'none'; form-action 'none'">
-<title>Filter design reports</title>
-<style>${reportCss("Filter design reports")}
+  return `${
+    pageHead(
+      "Filter design reports",
+      `${reportCss("Filter design reports")}
 tr.met td.verdict { color: #1e7a46; font-weight: bold; }
 td.date, td.verdict { white-space: nowrap; }
 tr.not-met td.verdict, tr.incomplete td.verdict { color: #b3261e; font-weight: bold; }
-</style>
-</head>
-<body>
-<header class="identity"><p class="kind">tapsheet</p><h1>Filter design reports</h1></header>
+`,
+      false,
+    )
+  }<header class="identity"><p class="kind">tapsheet</p><h1>Filter design reports</h1></header>
 <main>
 ${
     manifests.length === 0 ? `<p class="empty">No reports yet.</p>` : `<table class="data">

@@ -24,7 +24,7 @@ import {
   type RequirementRow,
   requirementRows,
 } from "../record/verdict.ts";
-import { escapeHtml as esc, proseToHtml } from "./html.ts";
+import { escapeHtml as esc, pageHead, proseToHtml } from "./html.ts";
 import { approvalsMarks } from "../record/manifest.ts";
 import type { ApprovalStatus } from "../record/approvals.ts";
 import { reportCss } from "./report_css.ts";
@@ -503,17 +503,9 @@ export function reportHtml(input: ReportInput): string {
       }</code></pre>`;
     }).join("\n");
 
-  return `<!DOCTYPE html>
-<html lang="en">
-<head>
-<meta charset="utf-8">
-<meta name="viewport" content="width=device-width, initial-scale=1">
-<meta http-equiv="Content-Security-Policy" content="default-src 'none'; img-src 'self' file: data:; style-src 'unsafe-inline'; base-uri 'none'; form-action 'none'">
-<title>${esc(meta.title)}${meta.document ? ` (${esc(meta.document)})` : ""}</title>
-<style>${reportCss(identity)}</style>
-</head>
-<body>
-<header class="identity">
+  return `${
+    pageHead(`${meta.title}${meta.document ? ` (${meta.document})` : ""}`, reportCss(identity))
+  }<header class="identity">
 <p class="kind">Filter design report</p>
 <h1>${esc(meta.title)}</h1>
 <dl class="facts">

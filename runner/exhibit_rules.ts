@@ -5,7 +5,13 @@
 // every requirement verdict from its achieved value and limit.
 import type { MaskSegment } from "../lib/types.ts";
 import type { RequirementResult } from "../lib/verify/requirement.ts";
-import { type Exhibit, figureKinds, isExportName } from "../record/types.ts";
+import {
+  costNumberFields,
+  type Exhibit,
+  figureKinds,
+  type ImplementationCostFigures,
+  isExportName,
+} from "../record/types.ts";
 
 /** Raised when a message breaks the rules; the run is then reported as failed. */
 export class ProtocolError extends Error {
@@ -210,18 +216,8 @@ export function checkedExhibit(value: unknown): Exhibit {
         name: text(e.name, "cost.name", 1000),
         cost: {
           structure: text(c.structure, "cost.structure", 1000),
-          multipliesPerOutput: n("multipliesPerOutput"),
-          addsPerOutput: n("addsPerOutput"),
-          multipliesPerSecond: n("multipliesPerSecond"),
-          stateWords: n("stateWords"),
-          coefficientWords: n("coefficientWords"),
-          memoryWords: n("memoryWords"),
-          latencySamples: n("latencySamples"),
-          latencySeconds: n("latencySeconds"),
-          inputRate: n("inputRate"),
-          outputRate: n("outputRate"),
-          decimation: n("decimation"),
-        },
+          ...Object.fromEntries(costNumberFields.map((k) => [k, n(k)])),
+        } as ImplementationCostFigures,
       };
       if (c.latencyFrequency !== undefined && c.latencyFrequency !== null) {
         out.cost.latencyFrequency = finite(c.latencyFrequency, "cost.latencyFrequency");

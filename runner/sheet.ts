@@ -12,6 +12,7 @@ import type { RequirementResult, WorstCase } from "../lib/verify/requirement.ts"
 import type { FilterSpec } from "../lib/verify/requirements.ts";
 import { type ConvertedCheck, disagreement, inDeclaredUnit, specOf } from "./requirements.ts";
 import {
+  costNumberFields,
   type DeclaredRequirement,
   defaultDesign,
   type Exhibit,
@@ -398,20 +399,10 @@ export const sheet = {
     if (cost === null || typeof cost !== "object" || typeof cost.structure !== "string") {
       throw new TypeError("sheet.cost needs the result of implementationCost(design, { fs })");
     }
-    const figures: ImplementationCostFigures = {
+    const figures = {
       structure: String(cost.structure),
-      multipliesPerOutput: Number(cost.multipliesPerOutput),
-      addsPerOutput: Number(cost.addsPerOutput),
-      multipliesPerSecond: Number(cost.multipliesPerSecond),
-      stateWords: Number(cost.stateWords),
-      coefficientWords: Number(cost.coefficientWords),
-      memoryWords: Number(cost.memoryWords),
-      latencySamples: Number(cost.latencySamples),
-      latencySeconds: Number(cost.latencySeconds),
-      inputRate: Number(cost.inputRate),
-      outputRate: Number(cost.outputRate),
-      decimation: Number(cost.decimation),
-    };
+      ...Object.fromEntries(costNumberFields.map((k) => [k, Number(cost[k])])),
+    } as ImplementationCostFigures;
     if (typeof cost.latencyFrequency === "number") figures.latencyFrequency = cost.latencyFrequency;
     sink({ type: "cost", name: String(name), cost: figures });
   },

@@ -57,16 +57,15 @@ function timer<T>(ms: number, value: T): { done: Promise<T>; cancel: () => void 
   return { done, cancel: () => clearTimeout(id) };
 }
 
-/**
- * Run a command to its end and return what it printed. The child is killed,
- * and a {@link DeadlineError} thrown, when it runs past `timeoutMs`.
- */
-export async function runToEnd(
-  command: string,
-  args: string[],
-  options: ProcessOptions = {},
-): Promise<Finished> {
-  const timeoutMs = options.timeoutMs ?? defaultTimeoutMs;
+/** Wait for `promise`, but at most `ms` (a grandchild could keep the pipes open). */
+async function atMost(promise: Promise<unknown>, ms = 5_000): Promise<void> {
+  const grace = timer(ms, undefined);
+  await Promise.race([promise, grace.done]);
+  grace.cancel();
+}
+
+/** Start `command` with piped output, and collect both streams as they arrive. */
+function start(command: string, args: string[], options: ProcessOptions) {
   const child = new Deno.Command(command, {
     args,
     env: { NO_COLOR: "1", ...options.env },
@@ -78,6 +77,20 @@ export async function runToEnd(
   const out = { text: "" };
   const err = { text: "" };
   const reading = Promise.all([drain(child.stdout, out), drain(child.stderr, err)]);
+  return { child, out, err, reading };
+}
+
+/**
+ * Run a command to its end and return what it printed. The child is killed,
+ * and a {@link DeadlineError} thrown, when it runs past `timeoutMs`.
+ */
+export async function runToEnd(
+  command: string,
+  args: string[],
+  options: ProcessOptions = {},
+): Promise<Finished> {
+  const timeoutMs = options.timeoutMs ?? defaultTimeoutMs;
+  const { child, out, err, reading } = start(command, args, options);
   const deadline = timer(timeoutMs, "deadline" as const);
   const ended = await Promise.race([child.status, deadline.done]);
   deadline.cancel();
@@ -85,9 +98,7 @@ export async function runToEnd(
     kill(child);
     const status = await child.status;
     if (options.killAtDeadline) {
-      const grace = timer(5_000, undefined);
-      await Promise.race([reading, grace.done]);
-      grace.cancel();
+      await atMost(reading);
       return { code: status.code, signal: status.signal, stdout: out.text, stderr: err.text };
     }
     throw new DeadlineError(
@@ -96,9 +107,7 @@ export async function runToEnd(
     );
   }
   // A grandchild could keep the pipes open after the child ended: wait briefly, not forever.
-  const grace = timer(5_000, undefined);
-  await Promise.race([reading, grace.done]);
-  grace.cancel();
+  await atMost(reading);
   return { code: ended.code, signal: ended.signal, stdout: out.text, stderr: err.text };
 }
 
@@ -124,18 +133,10 @@ export function spawnLines(
   args: string[],
   options: ProcessOptions = {},
 ): WatchedProcess {
-  const child = new Deno.Command(command, {
-    args,
-    env: { NO_COLOR: "1", ...options.env },
-    ...(options.cwd ? { cwd: options.cwd } : {}),
-    stdin: "null",
-    stdout: "piped",
-    stderr: "piped",
-  }).spawn();
-  const out = { text: "" };
-  const err = { text: "" };
+  const started = start(command, args, options);
+  const { child, out, err } = started;
   let ended = false;
-  const reading = Promise.all([drain(child.stdout, out), drain(child.stderr, err)]).then(() => {
+  const reading = started.reading.then(() => {
     ended = true;
   });
   const printed = () => `${out.text}\n--- standard error ---\n${err.text}`;
@@ -178,14 +179,10 @@ export function spawnLines(
       if (status === "deadline") {
         kill(child);
         await child.status;
-        const grace = timer(5_000, undefined);
-        await Promise.race([reading, grace.done]);
-        grace.cancel();
+        await atMost(reading);
         throw new DeadlineError(`the process did not end on ${signal}; it printed:\n${printed()}`);
       }
-      const grace = timer(5_000, undefined);
-      await Promise.race([reading, grace.done]);
-      grace.cancel();
+      await atMost(reading);
       return status;
     },
   };
