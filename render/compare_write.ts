@@ -5,7 +5,7 @@ import { basename, dirname, join } from "node:path";
 import type { Comparison } from "../record/compare.ts";
 import { comparisonFigures, comparisonHtml, type DrawnFigures } from "./compare_report.ts";
 import { figureToVegaLite } from "./figures.ts";
-import { vegaLiteToSvg } from "./svg.ts";
+import { figureSvg } from "./svg.ts";
 import { slug } from "./write.ts";
 
 /** The machine-readable file of a comparison folder; its presence marks the folder as one. */
@@ -48,7 +48,7 @@ export async function writeComparison(dir: string, c: Comparison): Promise<strin
           join(stage, path.replace(/\.svg$/, ".vl.json")),
           JSON.stringify(spec, null, 1) + "\n",
         );
-        await Deno.writeTextFile(join(stage, path), await vegaLiteToSvg(spec));
+        await Deno.writeTextFile(join(stage, path), await figureSvg(spec));
       }
       drawn.push(paths);
     }

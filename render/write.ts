@@ -26,7 +26,7 @@ import type { Provenance, Verdict, WrittenFile } from "../record/types.ts";
 import { manifestRequirements, overallVerdict, requirementRows } from "../record/verdict.ts";
 import { approvalsHtml, listingCsv, reportHtml, type ReportInput } from "./report.ts";
 import { type Approval, approvalStatuses } from "../record/approvals.ts";
-import { vegaLiteToSvg, warmRenderer } from "./svg.ts";
+import { figureSvg } from "./svg.ts";
 
 /** A short file-name stem from a title: lowercase letters, digits and dashes. */
 export function slug(title: string): string {
@@ -90,9 +90,9 @@ export async function writeReport(
     };
 
     const figures = new Map<Exhibit, WrittenFile>();
-    const previous = await previousFigures(finalDir, content.provenance.packages);
-    // Specifications first, in order; then every figure drawn at once (on the render
-    // workers when they run), written in order so the file list stays the same.
+    const previous = await previousFigures(finalDir, content.provenance);
+    // Specifications first, in order; then the figures, written in order so the file list
+    // stays the same.
     const drawn = content.execution.blocks.flatMap((b) =>
       b.exhibits.filter((e): e is FigureExhibit => e.type === "figure")
     ).map((exhibit, i) => {
@@ -101,12 +101,13 @@ export async function writeReport(
       const specText = JSON.stringify(spec, null, 1) + "\n";
       // A figure whose specification is unchanged is not rendered again.
       const reused = previous.get(specText);
-      return { exhibit, stem, specText, reused, svg: reused ?? vegaLiteToSvg(spec) };
+      return { exhibit, stem, spec, specText, reused };
     });
     step(`${drawn.length} figure specifications`);
     for (const [i, f] of drawn.entries()) {
       await write(`${f.stem}.vl.json`, f.specText);
-      figures.set(f.exhibit, await write(`${f.stem}.svg`, await f.svg, f.exhibit.title));
+      const svg = f.reused ?? await figureSvg(f.spec);
+      figures.set(f.exhibit, await write(`${f.stem}.svg`, svg, f.exhibit.title));
       step(`figure ${i + 1}: ${f.reused ? "reused" : "drawn"} (${f.exhibit.kind})`);
     }
 
@@ -184,30 +185,6 @@ export async function writeReport(
   }
 }
 
-/**
- * Load vega and draw one small masked figure with a worst point, so that the
- * report's own figures find vega loaded and its code paths compiled.
- */
-export function warmUpRenderer(): Promise<void> {
-  return warmRenderer(warmUpSpecification());
-}
-
-/** The small figure drawn to warm the renderer up. */
-export function warmUpSpecification(): Record<string, unknown> {
-  const x = Array.from({ length: 64 }, (_, i) => i * 62.5);
-  const figure: FigureExhibit = {
-    type: "figure",
-    kind: "magnitude",
-    title: "warm-up",
-    series: [{ name: "h", x, y: x.map((f) => (f < 1000 ? 0 : -60)) }],
-    mask: [
-      { from: 0, to: 1000, level: -1, bound: "lower", label: "W-1" },
-      { from: 2000, to: 4000, level: -50, bound: "upper", label: "W-2" },
-    ],
-  };
-  return figureToVegaLite(figure, { worst: [{ id: "W-2", at: 2000, met: true }] });
-}
-
 /** Kinds of figure whose x axis is frequency in Hz. */
 const frequencyKinds: readonly FigureExhibit["kind"][] = [
   "magnitude",
@@ -269,13 +246,16 @@ export async function refreshApprovals(
 /** SVG of each figure in an existing report, keyed by its vega-lite specification text. */
 async function previousFigures(
   dir: string,
-  packages: Provenance["packages"],
+  provenance: Provenance,
 ): Promise<Map<string, string>> {
   const out = new Map<string, string>();
   try {
-    // Reuse only figures drawn by the same package versions.
+    // Reuse only figures drawn by the same code and package versions.
     const old = await readManifest(dir);
-    if (!old || JSON.stringify(old.provenance.packages) !== JSON.stringify(packages)) return out;
+    if (
+      !old || old.provenance.toolSha256 !== provenance.toolSha256 ||
+      JSON.stringify(old.provenance.packages) !== JSON.stringify(provenance.packages)
+    ) return out;
     // Only files still as the old manifest lists them: an edited figure is drawn anew.
     const listed = new Map(old.files.map((f) => [f.path, f.sha256]));
     for await (const e of Deno.readDir(join(dir, "figures"))) {

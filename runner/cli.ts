@@ -7,8 +7,6 @@ import { projectRoot, stopAllRuns } from "./execute.ts";
 import { messages } from "./messages.ts";
 import { ParamError } from "./params.ts";
 import { writeReportsIndex } from "../render/index_page.ts";
-import { startRenderWorkers } from "../render/svg.ts";
-import { warmUpSpecification } from "../render/write.ts";
 import { findChromium, printToPdf } from "./chromium.ts";
 import { parseWorksheet, WorksheetError } from "./parse.ts";
 import { reportFolderName, type RunOptions, type RunSummary, runWorksheet } from "./run.ts";
@@ -216,13 +214,6 @@ async function commandRun(args: string[]): Promise<number> {
   if (options.has("--timings")) runOptions.timings = true;
 
   const files = await collect(positional);
-  // In a batch, figures are drawn off this thread, in workers that load vega while the
-  // worksheets run (measured: 15 % less time per worksheet for 50 of them). One worksheet
-  // alone is quicker drawn here: two workers loading vega would compete with its child.
-  if (files.length > 1) {
-    startRenderWorkers(warmUpSpecification());
-    runOptions.renderWorkers = true;
-  }
   // With --json -, standard output carries the JSON alone; the progress lines go to standard error.
   const jsonToStdout = options.get("--json")?.at(-1) === "-";
   const say = jsonToStdout ? console.error : console.log;

@@ -38,11 +38,6 @@ export interface ExecuteOptions {
    * import name "tapsheet". @default lib/mod.ts, loaded module by module
    */
   libraryModule?: string;
-  /**
-   * Called once the child has started, e.g. to load the renderer on this
-   * process's thread while the child works on the other core.
-   */
-  onChildStarted?: () => void;
 }
 
 /** Root of the tapsheet project (the folder holding deno.json). */
@@ -84,20 +79,87 @@ export function stopAllRuns(): void {
 }
 
 /**
- * Execute a worksheet with the given parameters. Never throws for problems
- * in the worksheet: they come back as the result's outcome and problem.
+ * A sandbox child started for one worksheet before its code is ready: it
+ * boots, starts its worker and loads the library while the parent parses the
+ * worksheet and hashes its inputs. Hand it to {@link executeWorksheet}
+ * (`options.sandbox`), or end it with {@link disposeSandbox} when the run is
+ * not needed after all.
  */
-export async function executeWorksheet(
-  worksheet: Worksheet,
-  params: Record<string, ParamValue>,
-  options: ExecuteOptions = {},
-): Promise<ExecutionResult> {
-  const started = performance.now();
-  const limits: Limits = {
+export interface Sandbox {
+  /** The worksheet it was started for, as an absolute path. */
+  readonly path: string;
+  /** The child and its folder, or why the worksheet may not run (a link out of data/). */
+  readonly started: SandboxChild | { refusal: string };
+}
+
+interface SandboxChild {
+  tempDir: string;
+  child: Deno.ChildProcess;
+  limits: Limits;
+}
+
+function limitsOf(options: ExecuteOptions): Limits {
+  return {
     timeoutSeconds: options.timeoutSeconds ?? 60,
     memoryMb: options.memoryMb ?? 1024,
     outputMb: options.outputMb ?? 16,
   };
+}
+
+/**
+ * Work out what the worksheet at `path` may read and start its sandbox child
+ * (see {@link Sandbox}); resolves once the child is spawned. Never throws for
+ * the worksheet's folder: a refusal comes back in `started`.
+ */
+export async function startSandbox(path: string, options: ExecuteOptions = {}): Promise<Sandbox> {
+  const limits = limitsOf(options);
+  const access = await readAccess(path);
+  if ("refusal" in access) return { path: resolve(path), started: access };
+  const tempDir = await makeScratchFolder(runFolderPrefix);
+  try {
+    await writeImportMap(tempDir, options);
+    const child = startChild(tempDir, access, limits, options.libraryModule);
+    activeRuns.set(child, tempDir);
+    return { path: resolve(path), started: { tempDir, child, limits } };
+  } catch (error) {
+    await Deno.remove(tempDir, { recursive: true }).catch(() => {});
+    throw error;
+  }
+}
+
+/** End a sandbox that will not be used: kill its child and remove its folder. */
+export async function disposeSandbox(sandbox: Sandbox): Promise<void> {
+  if ("refusal" in sandbox.started) return;
+  const { child, tempDir } = sandbox.started;
+  try {
+    child.kill("SIGKILL");
+  } catch {
+    // already gone
+  }
+  await Promise.all([
+    child.stdin.close().catch(() => {}),
+    child.stdout.cancel().catch(() => {}),
+    child.stderr.cancel().catch(() => {}),
+    child.status,
+  ]);
+  activeRuns.delete(child);
+  await Deno.remove(tempDir, { recursive: true }).catch(() => {});
+}
+
+/**
+ * Execute a worksheet with the given parameters. Never throws for problems
+ * in the worksheet: they come back as the result's outcome and problem.
+ * With `options.sandbox` started for this worksheet, its child runs the code;
+ * else one is started here.
+ */
+export async function executeWorksheet(
+  worksheet: Worksheet,
+  params: Record<string, ParamValue>,
+  options: ExecuteOptions & { sandbox?: Sandbox } = {},
+): Promise<ExecutionResult> {
+  const started = performance.now();
+  const given = options.sandbox?.path === resolve(worksheet.path) ? options.sandbox : undefined;
+  if (options.sandbox !== undefined && given === undefined) await disposeSandbox(options.sandbox);
   const codeParts = worksheet.parts.filter((p): p is CodePart => p.kind === "code");
   const blocks: BlockResult[] = codeParts.map((p) => ({
     index: p.index,
@@ -105,46 +167,49 @@ export async function executeWorksheet(
     exhibits: [],
   }));
   let requirements: DeclaredRequirement[] = [];
-  const rejected = (problem: SourceProblem): ExecutionResult => ({
-    outcome: "rejected",
-    requirements,
-    blocks,
-    problem,
-    durationMs: performance.now() - started,
-  });
+  const rejected = async (problem: SourceProblem): Promise<ExecutionResult> => {
+    if (given !== undefined) await disposeSandbox(given);
+    return {
+      outcome: "rejected",
+      requirements,
+      blocks,
+      problem,
+      durationMs: performance.now() - started,
+    };
+  };
   try {
     requirements = resolveRequirements(worksheet.requirements, params);
   } catch (error) {
     if (!(error instanceof RequirementError)) throw error;
-    return rejected({ path: worksheet.path, line: 1, message: error.message });
+    return await rejected({ path: worksheet.path, line: 1, message: error.message });
   }
 
   const assembly = assembleWorksheet(worksheet);
-  if (assembly.problems.length > 0) return rejected(assembly.problems[0]!);
-  const access = await readAccess(worksheet);
-  if ("problem" in access) return rejected(access.problem);
-
-  const tempDir = await makeScratchFolder(runFolderPrefix);
+  if (assembly.problems.length > 0) return await rejected(assembly.problems[0]!);
+  const ready = (given ?? await startSandbox(worksheet.path, options)).started;
+  if ("refusal" in ready) {
+    return await rejected({
+      path: worksheet.path,
+      line: 1,
+      message: ready.refusal,
+      excerpt: worksheet.source.split("\n")[0],
+    });
+  }
+  const { tempDir, child, limits } = ready;
   try {
-    const moduleUrl = await writeModule(tempDir, worksheet, assembly.module, options);
-    const child = startChild(tempDir, access, limits, options.libraryModule);
-    activeRuns.set(child, tempDir);
-    try {
-      const session = new ProtocolSession(blocks, requirements);
-      const input: HarnessInput = {
-        moduleUrl,
-        hostUrl: pathToFileURL(join(projectRoot, "runner", "worksheet_host.ts")).href,
-        params,
-        requirements,
-        nonce: session.nonce,
-        timeoutSeconds: limits.timeoutSeconds,
-      };
-      const ending = await superviseChild(child, input, limits, session, options.onChildStarted);
-      return conclude(worksheet, codeParts, moduleUrl, session, ending, limits, started);
-    } finally {
-      activeRuns.delete(child);
-    }
+    const moduleUrl = await writeModule(tempDir, worksheet, assembly.module);
+    const session = new ProtocolSession(blocks, requirements);
+    const input: HarnessInput = {
+      moduleUrl,
+      params,
+      requirements,
+      nonce: session.nonce,
+      timeoutSeconds: limits.timeoutSeconds,
+    };
+    const ending = await superviseChild(child, input, limits, session);
+    return conclude(worksheet, codeParts, moduleUrl, session, ending, limits, started);
   } finally {
+    activeRuns.delete(child);
     await Deno.remove(tempDir, { recursive: true }).catch(() => {});
   }
 }
@@ -163,11 +228,9 @@ interface ReadAccess {
  * of it (or nowhere) refuses the run: the sandbox checks paths as written, so
  * a link would otherwise let the worksheet read what it points at.
  */
-async function readAccess(worksheet: Worksheet): Promise<ReadAccess | { problem: SourceProblem }> {
-  const refuse = (message: string) => ({
-    problem: { path: worksheet.path, line: 1, message, excerpt: worksheet.source.split("\n")[0] },
-  });
-  const folder = await Deno.realPath(dirname(resolve(worksheet.path)));
+async function readAccess(path: string): Promise<ReadAccess | { refusal: string }> {
+  const refuse = (refusal: string) => ({ refusal });
+  const folder = await Deno.realPath(dirname(resolve(path)));
   const dataPath = join(folder, "data");
   let data: string;
   try {
@@ -183,16 +246,16 @@ async function readAccess(worksheet: Worksheet): Promise<ReadAccess | { problem:
   while (pending.length > 0) {
     const dir = pending.pop()!;
     for await (const entry of Deno.readDir(dir)) {
-      const path = join(dir, entry.name);
+      const entryPath = join(dir, entry.name);
       if (entry.isSymlink) {
-        const target = await Deno.realPath(path).catch(() => undefined);
+        const target = await Deno.realPath(entryPath).catch(() => undefined);
         if (target === undefined || !isInside(target, data)) {
           return refuse(
-            messages.execute.linkLeaves(relative(folder, path), target ?? "a missing file"),
+            messages.execute.linkLeaves(relative(folder, entryPath), target ?? "a missing file"),
           );
         }
       } else if (entry.isDirectory) {
-        pending.push(path);
+        pending.push(entryPath);
       }
     }
   }
@@ -204,17 +267,19 @@ function isInside(path: string, folder: string): boolean {
 }
 
 /** Write the module and the runner's own import map; returns the module's URL. */
-async function writeModule(
-  tempDir: string,
-  worksheet: Worksheet,
-  module: string,
-  options: ExecuteOptions,
-): Promise<string> {
+async function writeModule(tempDir: string, worksheet: Worksheet, module: string): Promise<string> {
   const name = worksheet.path.split(/[\\/]/).at(-1)!.replace(/\.md$/i, "");
   const modulePath = join(tempDir, `${name.replace(/[^A-Za-z0-9_.-]/g, "_")}.ts`);
   await Deno.writeTextFile(modulePath, module);
-  // The runner's own import names, and nothing else: no deno.json is read,
-  // so a config file in the worksheet's folder cannot remap them.
+  return pathToFileURL(modulePath).href;
+}
+
+/**
+ * The child's import map: the runner's own import names, and nothing else.
+ * No deno.json is read, so a config file in the worksheet's folder cannot
+ * remap them.
+ */
+async function writeImportMap(tempDir: string, options: ExecuteOptions): Promise<void> {
   await Deno.writeTextFile(
     join(tempDir, "imports.json"),
     JSON.stringify({
@@ -225,7 +290,6 @@ async function writeModule(
       },
     }),
   );
-  return pathToFileURL(modulePath).href;
 }
 
 /** Start the sandboxed child: read access as worked out, no other permission. */
@@ -385,7 +449,6 @@ async function superviseChild(
   input: HarnessInput,
   limits: Limits,
   session: ProtocolSession,
-  onStarted: (() => void) | undefined,
 ): Promise<Ending> {
   let stopped: RunOutcome | undefined;
   const stop = (why: RunOutcome) => {
@@ -426,10 +489,10 @@ async function superviseChild(
   };
   const stderr: string[] = [];
   const writer = child.stdin.getWriter();
-  // The input first: the child waits for it, and onStarted may hold this thread a while.
+  // The input first: the child waits for it.
   const sending = writer.write(
     new TextEncoder().encode(JSON.stringify(input, encodeNumbers) + "\n"),
-  ).catch(() => {}).then(() => onStarted?.());
+  ).catch(() => {});
   const [status] = await Promise.all([
     child.status,
     readLines(child.stdout, (l) => session.line(l)),

@@ -1,6 +1,7 @@
-// The sandbox child's main thread. It reads one line of input from the
-// parent, starts the worksheet in a worker (a separate realm, see
-// worksheet_host.ts), and relays the worker's messages to the parent as lines
+// The sandbox child's main thread. It starts the worker the worksheet will
+// run in (a separate realm, see worksheet_host.ts; it loads the library while
+// the parent is still parsing), reads one line of input from the parent,
+// starts the worksheet in the worker, and relays the worker's messages to the parent as lines
 // of JSON on standard output, each prefixed with the parent's nonce, which
 // the worksheet never sees. It also ends the process when the parent goes
 // away (standard input closes) or its own time is up, so a runaway worksheet
@@ -33,32 +34,26 @@ async function readInput(): Promise<HarnessInput> {
   return JSON.parse(text.slice(0, text.indexOf("\n")), decodeNumbers) as HarnessInput;
 }
 
-const input = await readInput();
-
-// The parent holds standard input open for the whole run: its end means the
-// parent has gone (killed, even with SIGKILL), so this process goes too.
-(async () => {
-  try {
-    while (!(await stdin.read()).done) { /* nothing else is sent */ }
-  } catch {
-    // closed
-  }
-  Deno.exit(exitCodes.parentGone);
-})();
-// Backstop behind the parent's own timeout.
-setTimeout(() => Deno.exit(exitCodes.timeUp), (input.timeoutSeconds + 5) * 1000);
+// The worker first: it boots and loads the library while the input is on its way.
+const worker = new Worker(new URL("./worksheet_host.ts", import.meta.url).href, {
+  type: "module",
+  name: "worksheet",
+});
+const inputReady = readInput();
 
 // Messages are queued and written as the parent reads them: a parent busy on
-// its own thread (loading the renderer) then holds up only this writer, never
-// the worksheet, which keeps computing in its worker.
-const queue: Uint8Array[] = [];
+// its own thread then holds up only this writer, never the worksheet, which
+// keeps computing in its worker. Nothing is written before the input (and its
+// nonce) has come.
+const queue: HarnessMessage[] = [];
 let writing: Promise<void> | undefined;
 function send(message: HarnessMessage): void {
-  // A leading newline ends any partial line the worksheet printed itself.
-  queue.push(encoder.encode(`\n${input.nonce}${JSON.stringify(message, encodeNumbers)}\n`));
+  queue.push(message);
   writing ??= (async () => {
+    const { nonce } = await inputReady;
     while (queue.length > 0) {
-      const bytes = queue.shift()!;
+      // A leading newline ends any partial line the worksheet printed itself.
+      const bytes = encoder.encode(`\n${nonce}${JSON.stringify(queue.shift(), encodeNumbers)}\n`);
       let written = 0;
       while (written < bytes.length) written += await Deno.stdout.write(bytes.subarray(written));
     }
@@ -73,8 +68,6 @@ async function finish(code: number): Promise<never> {
 }
 
 let current = -1;
-timings.inputRead = performance.now();
-const worker = new Worker(input.hostUrl, { type: "module", name: "worksheet" });
 const { port1, port2 } = new MessageChannel();
 port1.onmessage = (event: MessageEvent<HarnessMessage>) => {
   const message = event.data;
@@ -103,6 +96,20 @@ worker.onerror = (event) => {
   });
   void finish(exitCodes.failed);
 };
+const input = await inputReady;
+timings.inputRead = performance.now();
+// The parent holds standard input open for the whole run: its end means the
+// parent has gone (killed, even with SIGKILL), so this process goes too.
+(async () => {
+  try {
+    while (!(await stdin.read()).done) { /* nothing else is sent */ }
+  } catch {
+    // closed
+  }
+  Deno.exit(exitCodes.parentGone);
+})();
+// Backstop behind the parent's own timeout.
+setTimeout(() => Deno.exit(exitCodes.timeUp), (input.timeoutSeconds + 5) * 1000);
 const start: HostStart = {
   port: port2,
   moduleUrl: input.moduleUrl,

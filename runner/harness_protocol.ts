@@ -3,6 +3,7 @@
 // those files, which run as soon as they are imported.
 //
 //   parent ──stdin: one line of HarnessInput, then held open──▶ child main thread
+//     (the child starts its worker, which loads the library, before that line comes)
 //   child main thread ──private MessagePort: HostStart──▶ worker (worksheet runs here)
 //   worker ──that port: HarnessMessage──▶ child main thread
 //   child main thread ──stdout: "\n" + nonce + JSON line──▶ parent
@@ -38,8 +39,6 @@ export function encodeNumbers(_key: string, value: unknown): unknown {
 /** What the parent writes, as one line, to the child's standard input. */
 export interface HarnessInput {
   moduleUrl: string;
-  /** URL of the worker's entry point, runner/worksheet_host.ts. */
-  hostUrl: string;
   params: Record<string, ParamValue>;
   requirements: DeclaredRequirement[];
   /** Prefix of every protocol line, so stray output cannot pose as one. */

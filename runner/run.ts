@@ -2,7 +2,7 @@
 import { basename, dirname, join } from "node:path";
 import { hashOfFiles } from "./fingerprint.ts";
 import { libraryBundle } from "./library_bundle.ts";
-import { refreshApprovals, warmUpRenderer, writeReport } from "../render/write.ts";
+import { refreshApprovals, writeReport } from "../render/write.ts";
 import { approvalsPath, readApprovals } from "../record/approvals.ts";
 import {
   checkReportFolder,
@@ -19,7 +19,13 @@ import type {
   Worksheet,
 } from "../record/types.ts";
 import { requirementRows } from "../record/verdict.ts";
-import { type ExecuteOptions, executeWorksheet, projectRoot } from "./execute.ts";
+import {
+  disposeSandbox,
+  type ExecuteOptions,
+  executeWorksheet,
+  projectRoot,
+  startSandbox,
+} from "./execute.ts";
 import { applyOverrides } from "./params.ts";
 import { parseWorksheet, WorksheetError } from "./parse.ts";
 import {
@@ -46,11 +52,6 @@ export interface RunOptions extends ExecuteOptions {
   reportName?: string;
   /** Record where the time goes (RunSummary.timings). @default false */
   timings?: boolean;
-  /**
-   * Figures are drawn by render workers started with startRenderWorkers (the
-   * command line does): vega is then never loaded on this thread. @default false
-   */
-  renderWorkers?: boolean;
 }
 
 /** The outcome of running one worksheet. */
@@ -188,134 +189,138 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
   const folderName = options.reportName ?? await reportFolderName(outDir, name, path);
   const reportDir = join(outDir, folderName);
   const date = runDate(options.date);
-  let worksheet: Worksheet;
-  let params: Record<string, ParamValue> = {};
-  let overridden: string[] = [];
-  let problem: SourceProblem | undefined;
+  const libraryModule = await libraryBundle();
+  const existing = await readManifest(reportDir);
+  // The sandbox child starts now and boots while the worksheet is parsed, unless the report
+  // was made from this very text (the run is then most likely skipped).
+  const sandbox = options.force || existing?.provenance.worksheetSha256 !== sha256Hex(text)
+    ? await startSandbox(path, { ...options, ...(libraryModule ? { libraryModule } : {}) })
+    : undefined;
+  step("find the bundled library, start the sandbox child");
+  let handedOver = false;
   try {
-    const parsed = parseWorksheet(path, text);
-    ({ params, overridden } = applyOverrides(
-      parsed.params,
-      parsed.paramRules,
-      options.paramsFromFile ?? {},
-      options.settings ?? [],
-    ));
-    worksheet = parsed;
-  } catch (error) {
-    if (!(error instanceof WorksheetError)) throw error;
-    problem = error.problem;
-    worksheet = {
-      path,
-      source: text,
-      meta: { title: reportName(path), document: "", revision: "", signoff: [] },
-      params: {},
-      paramRules: {},
-      requirements: [],
-      parts: [],
-    };
+    return await runParsed();
+  } finally {
+    if (sandbox !== undefined && !handedOver) await disposeSandbox(sandbox);
   }
 
-  step("read and parse the worksheet, apply settings");
-  const inputs = sha256Hex(
-    [text, JSON.stringify(params), date, hashOfTool(), hashOfData(path)].join("\n"),
-  );
-  const existing = await readManifest(reportDir);
-  const stale = options.force ? "forced" : await staleBecause(reportDir, existing, inputs);
-  step("hash the inputs, check the existing report");
-  const approvals = readApprovals(approvalsPath(path));
-  if (stale === undefined && existing !== undefined) {
-    // Up to date: only the approvals shown may have changed (they are outside the record).
-    await refreshApprovals(reportDir, approvals);
+  async function runParsed(): Promise<RunSummary> {
+    let worksheet: Worksheet;
+    let params: Record<string, ParamValue> = {};
+    let overridden: string[] = [];
+    let problem: SourceProblem | undefined;
+    try {
+      const parsed = parseWorksheet(path, text);
+      ({ params, overridden } = applyOverrides(
+        parsed.params,
+        parsed.paramRules,
+        options.paramsFromFile ?? {},
+        options.settings ?? [],
+      ));
+      worksheet = parsed;
+    } catch (error) {
+      if (!(error instanceof WorksheetError)) throw error;
+      problem = error.problem;
+      worksheet = {
+        path,
+        source: text,
+        meta: { title: reportName(path), document: "", revision: "", signoff: [] },
+        params: {},
+        paramRules: {},
+        requirements: [],
+        parts: [],
+      };
+    }
+
+    step("read and parse the worksheet, apply settings");
+    const inputs = sha256Hex(
+      [text, JSON.stringify(params), date, hashOfTool(), hashOfData(path)].join("\n"),
+    );
+    const stale = options.force ? "forced" : await staleBecause(reportDir, existing, inputs);
+    step("hash the inputs, check the existing report");
+    const approvals = readApprovals(approvalsPath(path));
+    if (stale === undefined && existing !== undefined) {
+      // Up to date: only the approvals shown may have changed (they are outside the record).
+      await refreshApprovals(reportDir, approvals);
+      const summary: RunSummary = {
+        path,
+        name: folderName,
+        reportDir,
+        verdict: existing.verdict,
+        outcome: existing.outcome,
+        met: existing.requirements.filter((r) => r.met).length,
+        checked: existing.requirements.length,
+        fingerprint: existing.fingerprint,
+        skipped: true,
+        durationMs: performance.now() - started,
+      };
+      if (existing.problem) summary.problem = existing.problem;
+      return summary;
+    }
+
+    handedOver = problem === undefined;
+    const execution: ExecutionResult = problem === undefined
+      ? await executeWorksheet(worksheet, params, {
+        ...options,
+        ...(libraryModule ? { libraryModule } : {}),
+        ...(sandbox ? { sandbox } : {}),
+      })
+      : { outcome: "rejected", requirements: [], blocks: [], problem, durationMs: 0 };
+    step("run the worksheet in its sandbox child");
+    if (execution.timings) {
+      const t = execution.timings;
+      const lines: [string, number | undefined][] = [
+        ["  child: Deno start to harness", t.harnessStarted],
+        [
+          "  child: waiting for the input (worker and library loading)",
+          sub(t.inputRead, t.harnessStarted),
+        ],
+        ["  child: input to first block (worksheet module loaded)", sub(t.firstBlock, t.inputRead)],
+        ["  child: worksheet code", sub(t.done, t.firstBlock)],
+      ];
+      for (const [label, ms] of lines) if (ms !== undefined) timings.push([label, ms]);
+    }
+    const report = await writeReport(outDir, folderName, {
+      worksheet,
+      params,
+      overridden,
+      execution: withDisplayPath(execution, path, name.display),
+      inputs,
+      worksheetId: name.identity,
+      approvals,
+      provenance: {
+        worksheetPath: name.display,
+        worksheetSha256: sha256Hex(text),
+        tapsheetVersion: tapsheetVersion(),
+        toolSha256: hashOfTool(),
+        platform: `${Deno.build.os} ${Deno.build.arch}`,
+        command: reproducingCommand(name.display, date, params, overridden),
+        denoVersion: Deno.version.deno,
+        packages: packageVersions(),
+        date,
+      },
+    }, (label, ms) => timings.push([label, ms]));
+    clock = performance.now();
+    const rows = requirementRows(execution);
     const summary: RunSummary = {
       path,
       name: folderName,
-      reportDir,
-      verdict: existing.verdict,
-      outcome: existing.outcome,
-      met: existing.requirements.filter((r) => r.met).length,
-      checked: existing.requirements.length,
-      fingerprint: existing.fingerprint,
-      skipped: true,
+      reportDir: report.dir,
+      verdict: report.verdict,
+      outcome: execution.outcome,
+      met: rows.filter((r) => r.check?.result.met === true).length,
+      checked: rows.length,
+      fingerprint: report.fingerprint,
+      skipped: false,
       durationMs: performance.now() - started,
     };
-    if (existing.problem) summary.problem = existing.problem;
+    if (existing !== undefined && stale !== "inputs changed" && stale !== "forced") {
+      summary.rerunBecause = stale;
+    }
+    if (execution.problem) summary.problem = execution.problem;
+    if (options.timings) summary.timings = timings;
     return summary;
   }
-
-  const libraryModule = await libraryBundle();
-  step("find the bundled library");
-  // Load the plotting packages while the worksheet runs in its child process: only once the
-  // child has started, since evaluating them holds this thread for a while.
-  let renderer: Promise<unknown> | undefined;
-  const startRenderer = () =>
-    void (renderer ??= options.renderWorkers ? Promise.resolve() : warmUpRenderer());
-  const execution: ExecutionResult = problem === undefined
-    ? await executeWorksheet(worksheet, params, {
-      ...options,
-      ...(libraryModule ? { libraryModule } : {}),
-      onChildStarted: startRenderer,
-    })
-    : { outcome: "rejected", requirements: [], blocks: [], problem, durationMs: 0 };
-  step("run the worksheet in its sandbox (whole child)");
-  if (execution.timings) {
-    const t = execution.timings;
-    const lines: [string, number | undefined][] = [
-      ["  child: Deno start to harness", t.harnessStarted],
-      ["  child: input read, worker started", sub(t.inputRead, t.harnessStarted)],
-      ["  child: worker, library and module loaded", sub(t.firstBlock, t.inputRead)],
-      ["  child: worksheet code", sub(t.done, t.firstBlock)],
-    ];
-    for (const [label, ms] of lines) if (ms !== undefined) timings.push([label, ms]);
-  }
-  if (execution.blocks.some((b) => b.exhibits.some((e) => e.type === "figure"))) {
-    startRenderer();
-    await renderer;
-    step(
-      options.renderWorkers
-        ? "draw figures in the render workers"
-        : "wait for vega to load and warm up (overlapped with the child)",
-    );
-  }
-  const report = await writeReport(outDir, folderName, {
-    worksheet,
-    params,
-    overridden,
-    execution: withDisplayPath(execution, path, name.display),
-    inputs,
-    worksheetId: name.identity,
-    approvals,
-    provenance: {
-      worksheetPath: name.display,
-      worksheetSha256: sha256Hex(text),
-      tapsheetVersion: tapsheetVersion(),
-      toolSha256: hashOfTool(),
-      platform: `${Deno.build.os} ${Deno.build.arch}`,
-      command: reproducingCommand(name.display, date, params, overridden),
-      denoVersion: Deno.version.deno,
-      packages: packageVersions(),
-      date,
-    },
-  }, (label, ms) => timings.push([label, ms]));
-  clock = performance.now();
-  const rows = requirementRows(execution);
-  const summary: RunSummary = {
-    path,
-    name: folderName,
-    reportDir: report.dir,
-    verdict: report.verdict,
-    outcome: execution.outcome,
-    met: rows.filter((r) => r.check?.result.met === true).length,
-    checked: rows.length,
-    fingerprint: report.fingerprint,
-    skipped: false,
-    durationMs: performance.now() - started,
-  };
-  if (existing !== undefined && stale !== "inputs changed" && stale !== "forced") {
-    summary.rerunBecause = stale;
-  }
-  if (execution.problem) summary.problem = execution.problem;
-  if (options.timings) summary.timings = timings;
-  return summary;
 }
 
 function sub(a: number | undefined, b: number | undefined): number | undefined {

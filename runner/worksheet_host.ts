@@ -3,7 +3,8 @@
 // connects the sheet API to a private port, and takes away what a worksheet
 // must not use: ending the process, closing the worker, nested workers,
 // storage that outlives the run (the Cache API), and Deno's internals.
-// Then it imports the assembled worksheet module and reports the end.
+// It loads the library as soon as it starts; given the worksheet, it imports
+// the assembled module and reports the end.
 import { connectSheet } from "./sheet.ts";
 import { blockMarker, type HarnessMessage, type HostStart } from "./harness_protocol.ts";
 import type { Exhibit } from "../record/types.ts";
@@ -29,6 +30,10 @@ function seal(target: object, name: string | symbol, value: unknown): void {
     // already sealed (not configurable): it cannot be changed by the worksheet either
   }
 }
+
+// The library loads now, before the worksheet is known, while the parent is still parsing it;
+// the worksheet's own import of "tapsheet" then finds it loaded. Only tapsheet's code runs.
+const library = import("tapsheet").catch(() => undefined);
 
 const refuse = (what: string) => () => {
   throw new Error(`${what} is not available to a worksheet`);
@@ -104,5 +109,5 @@ scope.onmessage = (event: MessageEvent<HostStart>) => {
     event.preventDefault();
     fail(event.reason);
   });
-  import(moduleUrl).then(() => send({ kind: "done" }), fail);
+  library.then(() => import(moduleUrl)).then(() => send({ kind: "done" }), fail);
 };
