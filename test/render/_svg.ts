@@ -1,5 +1,29 @@
 // Reading back what vega put in an SVG: its size, the plot area, and its text.
-// The patterns follow the markup vega's SVG renderer writes (vega 6).
+// The patterns follow the markup vega's SVG renderer writes (vega 6); size,
+// texts and well-formedness read tapsheet's own drawing (render/draw.ts) too.
+import { figureSize } from "../../render/theme.ts";
+import type { FigureKind } from "../../record/types.ts";
+
+/** The outer size of a figure of this kind in the theme. */
+export function themeSize(kind: FigureKind): { width: number; height: number } {
+  return kind === "poleZero"
+    ? { width: figureSize.square, height: figureSize.square }
+    : kind === "quantised"
+    ? { width: figureSize.width, height: figureSize.withDifference }
+    : { width: figureSize.width, height: figureSize.height };
+}
+
+/** Whether every element opened in the markup is closed, in order. */
+export function balanced(svg: string): boolean {
+  const open: string[] = [];
+  for (const m of svg.matchAll(/<(\/?)([a-zA-Z][\w:-]*)[^>]*?(\/?)>/g)) {
+    const [, closing, name, selfClosing] = m;
+    if (selfClosing) continue;
+    if (!closing) open.push(name!);
+    else if (open.pop() !== name) return false;
+  }
+  return open.length === 0;
+}
 
 /** The outer size the SVG declares. */
 export function svgSize(svg: string): { width: number; height: number } {

@@ -12,11 +12,11 @@ import { scaleLog } from "npm:d3-scale@4.0.3";
 import { drawFigure, logLabel, logTicks, niceTicks, tickLabel } from "../../render/draw.ts";
 import { figureSvg, vegaLiteToSvg } from "../../render/svg.ts";
 import { figureToVegaLite } from "../../render/figures.ts";
-import { differencePanel, figureSize } from "../../render/theme.ts";
+import { differencePanel } from "../../render/theme.ts";
 import { executeWorksheet } from "../../runner/execute.ts";
 import { parseWorksheet } from "../../runner/parse.ts";
 import type { FigureExhibit } from "../../record/types.ts";
-import { plotArea, svgSize, svgTexts } from "./_svg.ts";
+import { balanced, plotArea, svgSize, svgTexts, themeSize } from "./_svg.ts";
 
 /** A repeatable stream of numbers in [0, 1) (a linear congruential generator). */
 function random(seed: number): () => number {
@@ -149,12 +149,9 @@ Deno.test("draw: every figure kind of the probe is drawn as vega draws the same 
     assert.ok(ours !== undefined, `${what}: drawn by draw.ts`);
     const theirs = await vegaLiteToSvg(spec);
     assert.deepEqual(svgSize(ours), svgSize(theirs), `${what}: size`);
-    const size = figure.kind === "poleZero"
-      ? { width: figureSize.square, height: figureSize.square }
-      : figure.kind === "quantised"
-      ? { width: figureSize.width, height: figureSize.withDifference }
-      : { width: figureSize.width, height: figureSize.height };
-    assert.deepEqual(svgSize(ours), size, `${what}: theme size`);
+    assert.deepEqual(svgSize(ours), themeSize(figure.kind), `${what}: theme size`);
+    assert.match(ours, /^<svg xmlns="http:\/\/www.w3.org\/2000\/svg"/, what);
+    assert.ok(ours.trimEnd().endsWith("</svg>") && balanced(ours), `${what}: well-formed markup`);
 
     // The same curves: every vertex of every line, as a fraction of the plot area.
     // source: vega 6.4.0 and vega-lite 6.5.0 (npm) rendering the same specification

@@ -5,9 +5,8 @@ import { executeWorksheet } from "../../runner/execute.ts";
 import { parseWorksheet } from "../../runner/parse.ts";
 import { figureToVegaLite } from "../../render/figures.ts";
 import { vegaLiteToSvg } from "../../render/svg.ts";
-import { figureSize } from "../../render/theme.ts";
 import { type FigureExhibit, figureKinds } from "../../record/types.ts";
-import { plotTexts, svgSize, svgTexts } from "./_svg.ts";
+import { balanced, plotTexts, svgSize, svgTexts, themeSize } from "./_svg.ts";
 
 const path = new URL("../runner/fixtures/every_figure.md", import.meta.url);
 
@@ -21,18 +20,6 @@ async function probeFigures(): Promise<FigureExhibit[]> {
   return result.blocks.flatMap((b) => b.exhibits).filter((e): e is FigureExhibit =>
     e.type === "figure"
   );
-}
-
-/** Whether every element opened in the markup is closed, in order. */
-function balanced(svg: string): boolean {
-  const open: string[] = [];
-  for (const m of svg.matchAll(/<(\/?)([a-zA-Z][\w:-]*)[^>]*?(\/?)>/g)) {
-    const [, closing, name, selfClosing] = m;
-    if (selfClosing) continue;
-    if (!closing) open.push(name!);
-    else if (open.pop() !== name) return false;
-  }
-  return open.length === 0;
 }
 
 /** Every data row of a spec, from every layer. */
@@ -60,12 +47,7 @@ Deno.test("every figure kind of the probe worksheet renders, with its title, mas
 
     assert.match(svg, /^<svg xmlns="http:\/\/www.w3.org\/2000\/svg"/, what);
     assert.ok(svg.endsWith("</svg>") && balanced(svg), `${what}: well-formed markup`);
-    const size = figure.kind === "poleZero"
-      ? { width: figureSize.square, height: figureSize.square }
-      : figure.kind === "quantised"
-      ? { width: figureSize.width, height: figureSize.withDifference }
-      : { width: figureSize.width, height: figureSize.height };
-    assert.deepEqual(svgSize(svg), size, `${what}: theme size`);
+    assert.deepEqual(svgSize(svg), themeSize(figure.kind), `${what}: theme size`);
 
     const texts = svgTexts(svg);
     const title = (spec.title as { text: string | string[] }).text;
