@@ -35,7 +35,7 @@ const baselineShift = { top: 0.79, middle: 0.3, bottom: -0.21, alphabetic: 0 } a
 /** A coordinate with at most two decimals, no "-0". */
 function n(v: number): string {
   const r = Math.round(v * 100) / 100;
-  return Object.is(r, -0) || r === 0 ? "0" : String(r);
+  return r === 0 ? "0" : String(r); // also -0
 }
 
 function esc(text: string): string {
@@ -662,38 +662,32 @@ export function draw(spec: Spec): string {
   const top = padding + (title.length > 0 ? title.length * figureType.titleLine + 10 : 0);
   const bottom = padding + 24 + xTitle.length * figureType.axisTitleLine +
     (legendRows > 0 ? 12 + 17 * legendRows : 0);
-  // Provisional frame for the y labels' widths; the plot's left edge makes room for them.
-  let frame: Frame = {
-    width: width - padding - yAxisRoom - padding,
-    height: height - top - bottom,
-  };
-  const provisional = [...yEncodings.values()].map((e) => axisFor("y", e, scaleOf("y", e, frame)));
+  // The y axes first (they depend on the plot's height only): the plot's left edge makes room
+  // for their labels and titles.
+  const plotHeight = height - top - bottom;
+  const yAxes = [...yEncodings].map(([key, e]) => {
+    const s = scaleOf("y", e, { width: width - padding - yAxisRoom - padding, height: plotHeight });
+    return { key, scale: s, axis: axisFor("y", e, s) };
+  });
   const yRoom = Math.max(
     yAxisRoom,
-    ...provisional.map((a) =>
-      tickSize + labelPadding + Math.max(
-        0,
-        ...a.labels.map((l) => textWidth(l, figureType.label)),
-      ) +
-      6 + a.title.length * figureType.axisTitleLine
+    ...yAxes.map(({ axis }) =>
+      tickSize + labelPadding +
+      Math.max(0, ...axis.labels.map((l) => textWidth(l, figureType.label))) +
+      6 + axis.title.length * figureType.axisTitleLine
     ),
   );
   const left = padding + yRoom;
-  frame = { width: width - left - padding, height: height - top - bottom };
+  const frame: Frame = { width: width - left - padding, height: plotHeight };
   if (frame.width < 40 || frame.height < 40) throw new Unsupported("no room for the plot");
 
   const xScale = scaleOf("x", xEncoding, frame);
   const xAxis = axisFor("x", xEncoding, xScale);
-  const yAxes = [...yEncodings.values()].map((e) => {
-    const s = scaleOf("y", e, frame);
-    return { encoding: e, scale: s, axis: axisFor("y", e, s) };
-  });
   const yScaleOf = (e: Spec | undefined) => {
     if (e === undefined) return yAxes[0]!.scale;
     if (e.field === undefined && e.datum === undefined) return undefined;
     const key = JSON.stringify(e.scale ?? {});
-    return yAxes.find((a) => JSON.stringify(a.encoding.scale ?? {}) === key)?.scale ??
-      yAxes[0]!.scale;
+    return (yAxes.find((a) => a.key === key) ?? yAxes[0]!).scale;
   };
 
   const parts: string[] = [];

@@ -199,12 +199,6 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
   step("find the bundled library, start the sandbox child");
   let handedOver = false;
   try {
-    return await runParsed();
-  } finally {
-    if (sandbox !== undefined && !handedOver) await disposeSandbox(sandbox);
-  }
-
-  async function runParsed(): Promise<RunSummary> {
     let worksheet: Worksheet;
     let params: Record<string, ParamValue> = {};
     let overridden: string[] = [];
@@ -320,6 +314,9 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
     if (execution.problem) summary.problem = execution.problem;
     if (options.timings) summary.timings = timings;
     return summary;
+  } finally {
+    // A child the run did not hand to executeWorksheet (skipped, rejected, or a settings error).
+    if (sandbox !== undefined && !handedOver) await disposeSandbox(sandbox);
   }
 }
 

@@ -88,8 +88,9 @@ async function probeSpecs(): Promise<{ figure: FigureExhibit; spec: Record<strin
 }
 
 /**
- * The vertices of every line path in groups matching `groupClass`, as
- * fractions of the plot area. With a difference panel (fixed in px at the
+ * The vertices of every line path in groups matching `groupClass` (drawn
+ * from the plot's top-left corner, in both renderers), as fractions of the
+ * plot's size. With a difference panel (fixed in px at the
  * bottom of the plot, whatever its height) the main plot's vertices are
  * fractions of the height above the panel, and the panel's are 2 + their
  * height above the bottom in panel heights.
@@ -97,8 +98,7 @@ async function probeSpecs(): Promise<{ figure: FigureExhibit; spec: Record<strin
 function lineVertices(
   svg: string,
   groupClass: RegExp,
-  area: { left: number; top: number; width: number; height: number },
-  offset: { left: number; top: number },
+  area: { width: number; height: number },
   panel: boolean,
 ): [number, number][] {
   const above = area.height - differencePanel.height - differencePanel.gap;
@@ -113,8 +113,8 @@ function lineVertices(
     for (const p of g[0].matchAll(/<path\b[^>]*\bd="([^"]+)"/g)) {
       for (const m of p[1]!.matchAll(/[ML]\s*(-?[\d.]+(?:e-?\d+)?)[ ,](-?[\d.]+(?:e-?\d+)?)/g)) {
         out.push([
-          (Number(m[1]) + offset.left - area.left) / area.width,
-          v(Number(m[2]) + offset.top - area.top),
+          Number(m[1]) / area.width,
+          v(Number(m[2])),
         ]);
       }
     }
@@ -122,17 +122,11 @@ function lineVertices(
   return out.sort((a, b) => a[0] - b[0] || a[1] - b[1]);
 }
 
-/** Where our plot area lies, from the plot group's translation and its frame. */
-function ourPlotArea(svg: string) {
-  const at = /<g class="plot" transform="translate\(([-\d.]+),([-\d.]+)\)">/.exec(svg);
+/** The size of our plot area, from its frame. */
+function ourPlotSize(svg: string): { width: number; height: number } {
   const frame = /<rect class="frame" width="([\d.]+)" height="([\d.]+)"/.exec(svg);
-  assert.ok(at && frame, "a plot group with its frame");
-  return {
-    left: Number(at[1]),
-    top: Number(at[2]),
-    width: Number(frame[1]),
-    height: Number(frame[2]),
-  };
+  assert.ok(frame, "a plot group with its frame");
+  return { width: Number(frame[1]), height: Number(frame[2]) };
 }
 
 /** Text inside the plot (notes), without the halos drawn under them. */
@@ -156,14 +150,17 @@ Deno.test("draw: every figure kind of the probe is drawn as vega draws the same 
     // The same curves: every vertex of every line, as a fraction of the plot area.
     // source: vega 6.4.0 and vega-lite 6.5.0 (npm) rendering the same specification
     const panel = figure.kind === "quantised";
-    const plot = ourPlotArea(ours);
-    const mine = lineVertices(ours, /<g class="mark-line"[^>]*>[\s\S]*?<\/g>/g, plot, plot, panel);
+    const mine = lineVertices(
+      ours,
+      /<g class="mark-line"[^>]*>[\s\S]*?<\/g>/g,
+      ourPlotSize(ours),
+      panel,
+    );
     const area = plotArea(theirs);
     const vega = lineVertices(
       theirs,
       /<g class="mark-line role-mark[^"]*"[^>]*>[\s\S]*?<\/g>/g,
-      { ...area, left: 0, top: 0 },
-      { left: 0, top: 0 },
+      area,
       panel,
     );
     assert.equal(mine.length, vega.length, `${what}: as many line vertices`);
