@@ -18,7 +18,7 @@
 import { Buffer } from "node:buffer";
 import { createPrivateKey, createPublicKey, sign, verify } from "node:crypto";
 import { basename, dirname, join } from "node:path";
-import { parse as parseYaml, stringify as stringifyYaml } from "yaml";
+import { parse as parseYaml, stringify as stringifyYaml } from "../runner/parsers.ts";
 
 /** One approval of one report. */
 export interface Approval {

@@ -1,5 +1,5 @@
 // Escaping and the Markdown renderer used for worksheet prose.
-import { Marked } from "marked";
+import { Marked } from "../runner/parsers.ts";
 
 /** Escape text for HTML element content and attribute values. */
 export function escapeHtml(text: string): string {

@@ -1,21 +1,16 @@
 // The command line: tapsheet run | check | new | verify | watch | compare | help.
+//
+// Only what `run` needs to start a worksheet's sandbox child is imported
+// here; everything else is imported where a command needs it, so that the
+// child starts early and boots on another core while the rest loads.
 import { basename, dirname, join, resolve } from "node:path";
 import { pathToFileURL } from "node:url";
-import { parse as parseYaml } from "yaml";
-import { assembleWorksheet, blockMarker } from "./assemble.ts";
 import { projectRoot, stopAllRuns } from "./execute.ts";
 import { messages } from "./messages.ts";
 import { ParamError } from "./params.ts";
-import { writeReportsIndex } from "../render/index_page.ts";
-import { findChromium, printToPdf } from "./chromium.ts";
-import { parseWorksheet, WorksheetError } from "./parse.ts";
 import { reportFolderName, type RunOptions, type RunSummary, runWorksheet } from "./run.ts";
-import { worksheetName } from "./provenance.ts";
-import { NoReportError, type Verification, verifyReport } from "./verify.ts";
-import { ApproveError, approveReport } from "./approve.ts";
-import { ApprovalsError } from "../record/approvals.ts";
-import { runDate } from "./provenance.ts";
-import { changeLines, CompareInputError, compareSides, worseLines } from "./compare.ts";
+import { runDate, worksheetName } from "./provenance.ts";
+import type { Verification } from "./verify.ts";
 
 /** Exit codes, documented in `tapsheet run --help`. */
 export const exitCodes = { met: 0, notMet: 1, failed: 2 } as const;
@@ -137,6 +132,7 @@ async function readParamsFile(path: string): Promise<Record<string, unknown>> {
   }
   let parsed: unknown;
   try {
+    const { parse: parseYaml } = await import("./parsers.ts");
     parsed = parseYaml(text);
   } catch (error) {
     const detail = error instanceof Error ? error.message.split("\n")[0]! : String(error);
@@ -254,6 +250,7 @@ async function commandRun(args: string[]): Promise<number> {
   };
   await Promise.all(Array.from({ length: jobs }, runNext));
   if (summaries.length > 1) printSummary(summaries, say);
+  const { writeReportsIndex } = await import("../render/index_page.ts");
   await writeReportsIndex(runOptions.outDir!);
   const json = options.get("--json")?.at(-1);
   if (json !== undefined) {
@@ -284,6 +281,7 @@ async function commandRun(args: string[]): Promise<number> {
 
 /** Print a report to report.pdf beside it with headless Chromium, when installed. */
 async function writePdf(reportDir: string, say: (line: string) => void): Promise<void> {
+  const { findChromium, printToPdf } = await import("./chromium.ts");
   if (findChromium() === undefined) {
     console.error(`  ${messages.cli.noChromium}`);
     return;
@@ -334,6 +332,8 @@ async function commandCheck(args: string[]): Promise<number> {
     return 0;
   }
   const files = await collect(positional);
+  const { parseWorksheet, WorksheetError } = await import("./parse.ts");
+  const { assembleWorksheet } = await import("./assemble.ts");
   const problems = new Map<string, string[]>(files.map((f) => [f, []]));
   const modules: { file: string; source: string; module: string }[] = [];
   for (const file of files) {
@@ -377,6 +377,7 @@ async function typeCheck(
 ): Promise<Map<string, string[]>> {
   const found = new Map<string, string[]>();
   if (modules.length === 0) return found;
+  const { blockMarker } = await import("./assemble.ts");
   const dir = await Deno.makeTempDir({ prefix: "tapsheet-check-" });
   try {
     const byUrl = new Map<string, (typeof modules)[number]>();
@@ -474,6 +475,7 @@ async function commandVerify(args: string[]): Promise<number> {
   const file = positional[0]!;
   await collect([file]);
   const outDir = options.get("--out")?.at(-1) ?? "reports";
+  const { NoReportError, verifyReport } = await import("./verify.ts");
   let v: Verification;
   try {
     v = await verifyReport(file, outDir);
@@ -534,6 +536,8 @@ async function commandApprove(args: string[]): Promise<number> {
     }
   }
   const date = options.get("--date")?.at(-1);
+  const { ApproveError, approveReport } = await import("./approve.ts");
+  const { ApprovalsError } = await import("../record/approvals.ts");
   try {
     const r = await approveReport({
       worksheet: file,
@@ -567,6 +571,7 @@ async function commandCompare(args: string[]): Promise<number> {
   }
   const [oldArg, newArg] = positional as [string, string];
   const outDir = options.get("--out")?.at(-1);
+  const { changeLines, CompareInputError, compareSides, worseLines } = await import("./compare.ts");
   let result: Awaited<ReturnType<typeof compareSides>>;
   try {
     result = await compareSides(oldArg, newArg, {
@@ -638,6 +643,7 @@ async function commandWatch(args: string[]): Promise<number> {
     }
     console.log(`${stamp()}  ${messages.cli.watchRunning(file)}`);
     const s = await runWorksheet(file, runOptions);
+    const { writeReportsIndex } = await import("../render/index_page.ts");
     await writeReportsIndex(runOptions.outDir!);
     console.log(
       `${stamp()}  ${verdictLabel(s)}  ${file}  ${s.met}/${s.checked} requirements met  ${
@@ -715,6 +721,7 @@ export async function main(args: string[]): Promise<number> {
         throw new UsageError(messages.cli.unknownCommand(command));
     }
   } catch (error) {
+    const { ApprovalsError } = await import("../record/approvals.ts");
     if (
       error instanceof UsageError || error instanceof ParamError || error instanceof ApprovalsError
     ) {

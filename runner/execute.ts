@@ -34,7 +34,7 @@ export interface ExecuteOptions {
   /** Cap on everything the child prints, in MB. @default 16 */
   outputMb?: number;
   /**
-   * The library as one bundled file (see library_bundle.ts), mapped to the
+   * The library as one bundled file (see bundles.ts), mapped to the
    * import name "tapsheet". @default lib/mod.ts, loaded module by module
    */
   libraryModule?: string;
@@ -150,12 +150,14 @@ export async function disposeSandbox(sandbox: Sandbox): Promise<void> {
  * Execute a worksheet with the given parameters. Never throws for problems
  * in the worksheet: they come back as the result's outcome and problem.
  * With `options.sandbox` started for this worksheet, its child runs the code;
- * else one is started here.
+ * else one is started here. `options.onInputSent` is called once the child
+ * has its input (or could not be given it): the caller may then do other work
+ * while the worksheet runs.
  */
 export async function executeWorksheet(
   worksheet: Worksheet,
   params: Record<string, ParamValue>,
-  options: ExecuteOptions & { sandbox?: Sandbox } = {},
+  options: ExecuteOptions & { sandbox?: Sandbox; onInputSent?: () => void } = {},
 ): Promise<ExecutionResult> {
   const started = performance.now();
   const given = options.sandbox?.path === resolve(worksheet.path) ? options.sandbox : undefined;
@@ -206,7 +208,7 @@ export async function executeWorksheet(
       nonce: session.nonce,
       timeoutSeconds: limits.timeoutSeconds,
     };
-    const ending = await superviseChild(child, input, limits, session);
+    const ending = await superviseChild(child, input, limits, session, options.onInputSent);
     return conclude(worksheet, codeParts, moduleUrl, session, ending, limits, started);
   } finally {
     activeRuns.delete(child);
@@ -449,6 +451,7 @@ async function superviseChild(
   input: HarnessInput,
   limits: Limits,
   session: ProtocolSession,
+  onInputSent: () => void = () => {},
 ): Promise<Ending> {
   let stopped: RunOutcome | undefined;
   const stop = (why: RunOutcome) => {
@@ -492,7 +495,7 @@ async function superviseChild(
   // The input first: the child waits for it.
   const sending = writer.write(
     new TextEncoder().encode(JSON.stringify(input, encodeNumbers) + "\n"),
-  ).catch(() => {});
+  ).catch(() => {}).then(onInputSent);
   const [status] = await Promise.all([
     child.status,
     readLines(child.stdout, (l) => session.line(l)),

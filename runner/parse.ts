@@ -1,6 +1,5 @@
 // Stage 1: worksheet text → Worksheet (identity, parameters, prose and code parts).
-import { Lexer } from "marked";
-import { isMap, isScalar, isSeq, LineCounter, parseDocument } from "yaml";
+import { isMap, isScalar, isSeq, Lexer, LineCounter, parseDocument } from "./parsers.ts";
 import type { Node as YamlNode, YAMLMap } from "yaml";
 import type {
   CodePart,
@@ -164,10 +163,11 @@ export function parseWorksheet(path: string, text: string): ParsedWorksheet {
     fail,
   );
 
-  // Body: walk marked's top-level tokens, whose raw strings add up to the source.
+  // Body: walk marked's top-level tokens, whose raw strings add up to the source. Only the
+  // block level is lexed: what is inside a paragraph or a heading does not matter here.
   const bodyStart = close + 1; // 0-based index of the first body line
   const body = lines.slice(bodyStart).join("\n");
-  const tokens = Lexer.lex(body);
+  const tokens = new Lexer().blockTokens(body);
   const parts: (ProsePart | CodePart)[] = [];
   let line = bodyStart + 1; // 1-based line of the current token's first character
   let prose: string[] = [];

@@ -1,9 +1,11 @@
 // One worksheet from file to report: parse → execute → render.
+//
+// The parser, the report writer and the approvals are imported only once the
+// worksheet's sandbox child is started, and the writer only once the child
+// has its input, so the child boots and runs while they load.
 import { basename, dirname, join } from "node:path";
-import { hashOfFiles } from "./fingerprint.ts";
-import { libraryBundle } from "./library_bundle.ts";
-import { refreshApprovals, writeReport } from "../render/write.ts";
-import { approvalsPath, readApprovals } from "../record/approvals.ts";
+import { hashOfFiles, toolFileDigests } from "./fingerprint.ts";
+import { libraryBundle } from "./bundles.ts";
 import {
   checkReportFolder,
   folderIsIntact,
@@ -24,10 +26,10 @@ import {
   type ExecuteOptions,
   executeWorksheet,
   projectRoot,
+  type Sandbox,
   startSandbox,
 } from "./execute.ts";
 import { applyOverrides } from "./params.ts";
-import { parseWorksheet, WorksheetError } from "./parse.ts";
 import {
   packageVersions,
   runDate,
@@ -104,6 +106,19 @@ export async function reportFolderName(
   return taken ? other : plain;
 }
 
+/**
+ * Import a module once per process: runs of one batch share the promise.
+ * (Deno 2.9 can panic when two imports of a module that awaits at its top
+ * level, like parsers.ts, are under way at once.)
+ */
+function importOnce<T>(load: () => Promise<T>): () => Promise<T> {
+  let loaded: Promise<T> | undefined;
+  return () => (loaded ??= load());
+}
+const parser = importOnce(() => import("./parse.ts"));
+const reportWriter = importOnce(() => import("../render/write.ts"));
+const approvalsModule = importOnce(() => import("../record/approvals.ts"));
+
 let toolHash: string | undefined;
 
 /** SHA-256 over tapsheet's own code and lock file: a new version invalidates every report. */
@@ -115,7 +130,7 @@ function hashOfTool(): string {
     "render",
     "deno.json",
     "deno.lock",
-  ]);
+  ], toolFileDigests);
   return toolHash;
 }
 
@@ -192,13 +207,15 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
   const libraryModule = await libraryBundle();
   const existing = await readManifest(reportDir);
   // The sandbox child starts now and boots while the worksheet is parsed, unless the report
-  // was made from this very text (the run is then most likely skipped).
+  // was made from this very text (the run is then most likely skipped). Once started, it runs.
   const sandbox = options.force || existing?.provenance.worksheetSha256 !== sha256Hex(text)
     ? await startSandbox(path, { ...options, ...(libraryModule ? { libraryModule } : {}) })
     : undefined;
   step("find the bundled library, start the sandbox child");
-  let handedOver = false;
+  let running: Promise<ExecutionResult> | undefined;
+  let finished = false;
   try {
+    const { parseWorksheet, WorksheetError } = await parser();
     let worksheet: Worksheet;
     let params: Record<string, ParamValue> = {};
     let overridden: string[] = [];
@@ -225,17 +242,35 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
         parts: [],
       };
     }
-
     step("read and parse the worksheet, apply settings");
+    const execute = (early?: Sandbox, onInputSent?: () => void) =>
+      executeWorksheet(worksheet, params, {
+        ...options,
+        ...(libraryModule ? { libraryModule } : {}),
+        ...(early ? { sandbox: early } : {}),
+        ...(onInputSent ? { onInputSent } : {}),
+      });
+    // A child started early runs now: the text differs from the report's (or the run is
+    // forced), so the report cannot stand. The hashing below overlaps with the run.
+    if (sandbox !== undefined && problem === undefined) {
+      let sent = () => {};
+      const inputSent = new Promise<void>((resolve) => (sent = resolve));
+      running = execute(sandbox, sent);
+      await Promise.race([inputSent, running]);
+      step("give the sandbox child its input");
+    }
+    const writer = reportWriter();
+    const { approvalsPath, readApprovals } = await approvalsModule();
+
     const inputs = sha256Hex(
       [text, JSON.stringify(params), date, hashOfTool(), hashOfData(path)].join("\n"),
     );
     const stale = options.force ? "forced" : await staleBecause(reportDir, existing, inputs);
     step("hash the inputs, check the existing report");
     const approvals = readApprovals(approvalsPath(path));
-    if (stale === undefined && existing !== undefined) {
+    if (running === undefined && stale === undefined && existing !== undefined) {
       // Up to date: only the approvals shown may have changed (they are outside the record).
-      await refreshApprovals(reportDir, approvals);
+      await (await writer).refreshApprovals(reportDir, approvals);
       const summary: RunSummary = {
         path,
         name: folderName,
@@ -249,17 +284,16 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
         durationMs: performance.now() - started,
       };
       if (existing.problem) summary.problem = existing.problem;
+      finished = true;
       return summary;
     }
 
-    handedOver = problem === undefined;
-    const execution: ExecutionResult = problem === undefined
-      ? await executeWorksheet(worksheet, params, {
-        ...options,
-        ...(libraryModule ? { libraryModule } : {}),
-        ...(sandbox ? { sandbox } : {}),
-      })
+    const execution: ExecutionResult = running !== undefined
+      ? await running
+      : problem === undefined
+      ? await execute()
       : { outcome: "rejected", requirements: [], blocks: [], problem, durationMs: 0 };
+    finished = true;
     step("run the worksheet in its sandbox child");
     if (execution.timings) {
       const t = execution.timings;
@@ -274,6 +308,7 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
       ];
       for (const [label, ms] of lines) if (ms !== undefined) timings.push([label, ms]);
     }
+    const { writeReport } = await writer;
     const report = await writeReport(outDir, folderName, {
       worksheet,
       params,
@@ -315,8 +350,12 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
     if (options.timings) summary.timings = timings;
     return summary;
   } finally {
-    // A child the run did not hand to executeWorksheet (skipped, rejected, or a settings error).
-    if (sandbox !== undefined && !handedOver) await disposeSandbox(sandbox);
+    // A child the run did not hand to executeWorksheet (rejected, or a settings error), or
+    // one still running when the run ended by an error: ended, its folder removed.
+    if (sandbox !== undefined && (running === undefined || !finished)) {
+      await disposeSandbox(sandbox);
+      await running?.catch(() => {});
+    }
   }
 }
 

@@ -93,3 +93,26 @@ Deno.test("early sandbox: a worksheet that does not parse, or a report that is u
     await Deno.remove(dir, { recursive: true });
   }
 });
+
+Deno.test("early sandbox: a run that fails while its child computes ends the child and leaves nothing", async () => {
+  // The child gets its input before the inputs are hashed and the approvals read: an error
+  // there (here a damaged approvals file) must still end it.
+  const dir = await Deno.makeTempDir();
+  try {
+    const sheet = join(dir, "basic.md");
+    await Deno.copyFile(basic, sheet);
+    await Deno.writeTextFile(join(dir, "basic.approvals.yaml"), "approvals: [unclosed\n");
+    const before = await runFolders();
+    await assert.rejects(runWorksheet(sheet, { outDir: join(dir, "reports") }), /approvals/i);
+    assert.deepEqual(await runFolders(), before);
+    const children = new Deno.Command("pgrep", { args: ["-P", String(Deno.pid)], stdout: "piped" });
+    const listed = new TextDecoder().decode((await children.output()).stdout).trim();
+    assert.equal(
+      listed.split("\n").filter((pid) => pid !== "" && alive(Number(pid))).length,
+      0,
+      `children of the test process: ${listed}`,
+    );
+  } finally {
+    await Deno.remove(dir, { recursive: true });
+  }
+});

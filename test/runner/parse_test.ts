@@ -83,3 +83,29 @@ for (const [what, text, line, message] of bad) {
     });
   });
 }
+
+Deno.test("parse: marked's block level alone gives the same top-level tokens as its whole lexer", async () => {
+  // source: marked 18.2.1's own Lexer.lex (block and inline), against which the
+  // block-only pass parseWorksheet uses is checked, over every worksheet of the project
+  // plus constructs that could make the two disagree
+  const { Lexer } = await import("marked");
+  const folders = ["../../worksheets/", "../../worksheets/templates/", "./fixtures/", "./hostile/"];
+  const bodies: string[] = [
+    "Text with `code` and *emphasis*\n\n```ts\nconst a = 1;\n```\n\n- a list\n\n  ```ts\n  nested\n  ```\n",
+    "[ref]: https://example.org\n\n> quote\n> ```ts\n> inside\n> ```\n\n| a | b |\n|---|---|\n| 1 | 2 |\n",
+    "<div>\n\n```ts\nhtml around\n```\n\n</div>\n\n    indented\n    ```ts\n",
+    "Heading\n===\n\n~~~ts\ntilde\n~~~\n\n````ts\n```\nfour\n````\n",
+  ];
+  for (const folder of folders) {
+    for await (const e of Deno.readDir(new URL(folder, import.meta.url))) {
+      if (!e.name.endsWith(".md")) continue;
+      const text = await Deno.readTextFile(new URL(folder + e.name, import.meta.url));
+      bodies.push(text.replace(/\r\n?/g, "\n"));
+    }
+  }
+  assert.ok(bodies.length > 30);
+  for (const body of bodies) {
+    const top = (tokens: { type: string; raw: string }[]) => tokens.map((t) => [t.type, t.raw]);
+    assert.deepEqual(top(new Lexer().blockTokens(body)), top(Lexer.lex(body)));
+  }
+});

@@ -247,7 +247,11 @@ Deno.test("run: same-named worksheets from two folders keep two reports", async 
       "--out",
       out,
     ]);
-    assert.equal(again.stdout.match(/unchanged, not re-run/g)?.length, 2, again.stdout);
+    assert.equal(
+      again.stdout.match(/unchanged, not re-run/g)?.length,
+      2,
+      again.stdout + again.stderr + again.code,
+    );
   } finally {
     await Deno.remove(dir, { recursive: true });
   }
