@@ -319,6 +319,9 @@ export interface ExecutionResult {
   timings?: Record<string, number>;
 }
 
+/** What a run has produced so far: its requirements and the blocks' exhibits. */
+export type RunProgress = Pick<ExecutionResult, "requirements" | "blocks">;
+
 /** The overall verdict of a run. */
 export type Verdict = "met" | "not met" | "incomplete" | "no requirements";
 

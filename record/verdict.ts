@@ -3,7 +3,13 @@
 // requirement no check reached is a row of its own, and keeps the verdict
 // from being "met".
 import type { ManifestRequirement } from "./manifest.ts";
-import type { CheckExhibit, DeclaredRequirement, ExecutionResult, Verdict } from "./types.ts";
+import type {
+  CheckExhibit,
+  DeclaredRequirement,
+  ExecutionResult,
+  RunProgress,
+  Verdict,
+} from "./types.ts";
 
 /** One row of the requirement table. */
 export interface RequirementRow {
@@ -13,7 +19,7 @@ export interface RequirementRow {
 }
 
 /** Every check of a run, in the order the worksheet made them. */
-export function checksOf(execution: ExecutionResult): CheckExhibit[] {
+export function checksOf(execution: RunProgress): CheckExhibit[] {
   return execution.blocks.flatMap((b) => b.exhibits.filter((e) => e.type === "check"));
 }
 
@@ -22,7 +28,7 @@ export function checksOf(execution: ExecutionResult): CheckExhibit[] {
  * with one row per design it was checked on (in check order), or one
  * unchecked row.
  */
-export function requirementRows(execution: ExecutionResult): RequirementRow[] {
+export function requirementRows(execution: RunProgress): RequirementRow[] {
   const checks = checksOf(execution);
   return execution.requirements.flatMap((requirement) => {
     const own = checks.filter((c) => c.result.id === requirement.id);

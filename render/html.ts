@@ -42,9 +42,18 @@ const prose = new Marked({
   },
 });
 
+/** Prose already rendered in this process (a run renders its prose while its child computes). */
+const rendered = new Map<string, string>();
+
 /** Render worksheet prose (CommonMark + tables) to safe HTML. */
 export function proseToHtml(markdown: string): string {
-  return prose.parse(markdown, { async: false }) as string;
+  let html = rendered.get(markdown);
+  if (html === undefined) {
+    html = prose.parse(markdown, { async: false }) as string;
+    if (rendered.size >= 256) rendered.clear();
+    rendered.set(markdown, html);
+  }
+  return html;
 }
 
 /**

@@ -50,6 +50,16 @@ ${rows.join("\n")}
 `;
 }
 
+/**
+ * The index's order of report names: letters without regard to case, then
+ * code units. The same on every machine, and no locale collator to load (its
+ * first use costs a run ~5 ms).
+ */
+export function reportOrder(a: string, b: string): number {
+  const order = (x: string, y: string) => (x < y ? -1 : x > y ? 1 : 0);
+  return order(a.toLowerCase(), b.toLowerCase()) || order(a, b);
+}
+
 /** Write `<outDir>/index.html` from every `<outDir>/<name>/manifest.json`. */
 export async function writeReportsIndex(outDir: string): Promise<void> {
   const manifests: Manifest[] = [];
@@ -58,7 +68,7 @@ export async function writeReportsIndex(outDir: string): Promise<void> {
     const manifest = await readManifest(join(outDir, e.name));
     if (manifest) manifests.push(manifest); // else not a report folder
   }
-  manifests.sort((a, b) => a.name.localeCompare(b.name));
+  manifests.sort((a, b) => reportOrder(a.name, b.name));
   const temp = join(outDir, `.index.html.${crypto.randomUUID().slice(0, 8)}`);
   await Deno.writeTextFile(temp, reportsIndexHtml(manifests));
   await Deno.rename(temp, join(outDir, "index.html"));

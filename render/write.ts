@@ -5,10 +5,10 @@ import { join, resolve, sep } from "node:path";
 import {
   type CoefficientsExhibit,
   defaultDesign,
-  type ExecutionResult,
   type Exhibit,
   type FigureExhibit,
   isExportName,
+  type RunProgress,
 } from "../record/types.ts";
 import { type FigureContext, figureToVegaLite } from "./figures.ts";
 import {
@@ -56,7 +56,44 @@ export type ReportContent =
     worksheetId: string;
     /** Approvals recorded beside the worksheet; shown, but not covered by the fingerprint. */
     approvals?: Approval[];
+    /** Figures made while the run was under way ({@link draftFigure}), by exhibit. */
+    drafts?: ReadonlyMap<Exhibit, FigureDraft>;
   };
+
+/**
+ * A figure's specification and drawing, made from the run's exhibits so far
+ * while the worksheet still computes. The report takes them only when the
+ * figure's context (the worst points it marks) is the same at the end; both
+ * are pure functions of the figure and its context, so they are then exactly
+ * what the report would make.
+ */
+export interface FigureDraft {
+  /** The figure's context as JSON, as it was when drafted. */
+  context: string;
+  spec: Record<string, unknown>;
+  specText: string;
+  svg: string;
+}
+
+/** The saved text of a figure's vega-lite specification. */
+function specTextOf(spec: Record<string, unknown>): string {
+  return JSON.stringify(spec, null, 1) + "\n";
+}
+
+/** Make a figure's specification and drawing ahead of the report (see {@link FigureDraft}). */
+export async function draftFigure(
+  exhibit: FigureExhibit,
+  progress: RunProgress,
+): Promise<FigureDraft> {
+  const context = figureContext(exhibit, progress);
+  const spec = figureToVegaLite(exhibit, context);
+  return {
+    context: JSON.stringify(context),
+    spec,
+    specText: specTextOf(spec),
+    svg: await figureSvg(spec),
+  };
+}
 
 /**
  * Render and write the report for one run into `<outDir>/<name>/`.
@@ -97,18 +134,34 @@ export async function writeReport(
       b.exhibits.filter((e): e is FigureExhibit => e.type === "figure")
     ).map((exhibit, i) => {
       const stem = `figures/${String(i + 1).padStart(2, "0")}-${slug(exhibit.title)}`;
-      const spec = figureToVegaLite(exhibit, figureContext(exhibit, content.execution));
-      const specText = JSON.stringify(spec, null, 1) + "\n";
+      const context = figureContext(exhibit, content.execution);
+      const draft = content.drafts?.get(exhibit);
+      if (draft !== undefined && draft.context === JSON.stringify(context)) {
+        const reused = previous.get(draft.specText);
+        return {
+          ...draft,
+          exhibit,
+          stem,
+          svg: reused ?? draft.svg,
+          how: reused ? "reused" : "drafted",
+        };
+      }
+      const spec = figureToVegaLite(exhibit, context);
+      const specText = specTextOf(spec);
       // A figure whose specification is unchanged is not rendered again.
       const reused = previous.get(specText);
-      return { exhibit, stem, spec, specText, reused };
+      return { exhibit, stem, spec, specText, svg: reused, how: reused ? "reused" : "drawn" };
     });
     step(`${drawn.length} figure specifications`);
     for (const [i, f] of drawn.entries()) {
       await write(`${f.stem}.vl.json`, f.specText);
-      const svg = f.reused ?? await figureSvg(f.spec);
+      const svg = f.svg ?? await figureSvg(f.spec);
       figures.set(f.exhibit, await write(`${f.stem}.svg`, svg, f.exhibit.title));
-      step(`figure ${i + 1}: ${f.reused ? "reused" : "drawn"} (${f.exhibit.kind})`);
+      step(
+        `figure ${i + 1}: ${
+          f.how === "drafted" ? "drawn while the worksheet ran" : f.how
+        } (${f.exhibit.kind})`,
+      );
     }
 
     // Every coefficient listing is also a CSV file of the report: its SHA-256 is the listing's.
@@ -199,7 +252,7 @@ const frequencyKinds: readonly FigureExhibit["kind"][] = [
  * What a figure marks besides its data: the worst point of every checked
  * requirement its mask is labelled with (frequency figures, worst case in Hz).
  */
-export function figureContext(figure: FigureExhibit, execution: ExecutionResult): FigureContext {
+export function figureContext(figure: FigureExhibit, execution: RunProgress): FigureContext {
   if (!frequencyKinds.includes(figure.kind)) return {};
   const ids = new Set((figure.mask ?? []).flatMap((m) => (m.label ? [m.label] : [])));
   const worst = requirementRows(execution).flatMap(({ requirement, check }) => {

@@ -8,7 +8,7 @@ import { dirname, join, relative, resolve, sep } from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
 import { assembleWorksheet } from "./assemble.ts";
 import { checkedExhibit, ProtocolError } from "./exhibit_rules.ts";
-import { decodeNumbers, encodeNumbers } from "./harness_protocol.ts";
+import { decodeMessage, encodeMessage } from "./harness_protocol.ts";
 import type { HarnessInput, HarnessMessage } from "./harness_protocol.ts";
 import { messages } from "./messages.ts";
 import { makeScratchFolder } from "./scratch.ts";
@@ -21,6 +21,7 @@ import type {
   Exhibit,
   ParamValue,
   RunOutcome,
+  RunProgress,
   SourceProblem,
   Worksheet,
 } from "../record/types.ts";
@@ -152,12 +153,17 @@ export async function disposeSandbox(sandbox: Sandbox): Promise<void> {
  * With `options.sandbox` started for this worksheet, its child runs the code;
  * else one is started here. `options.onInputSent` is called once the child
  * has its input (or could not be given it): the caller may then do other work
- * while the worksheet runs.
+ * while the worksheet runs. `options.onExhibit` is told of each exhibit as it
+ * is accepted, with the run so far (which it must not change).
  */
 export async function executeWorksheet(
   worksheet: Worksheet,
   params: Record<string, ParamValue>,
-  options: ExecuteOptions & { sandbox?: Sandbox; onInputSent?: () => void } = {},
+  options: ExecuteOptions & {
+    sandbox?: Sandbox;
+    onInputSent?: () => void;
+    onExhibit?: (exhibit: Exhibit, progress: RunProgress) => void;
+  } = {},
 ): Promise<ExecutionResult> {
   const started = performance.now();
   const given = options.sandbox?.path === resolve(worksheet.path) ? options.sandbox : undefined;
@@ -200,7 +206,7 @@ export async function executeWorksheet(
   const { tempDir, child, limits } = ready;
   try {
     const moduleUrl = await writeModule(tempDir, worksheet, assembly.module);
-    const session = new ProtocolSession(blocks, requirements);
+    const session = new ProtocolSession(blocks, requirements, options.onExhibit);
     const input: HarnessInput = {
       moduleUrl,
       params,
@@ -348,7 +354,12 @@ class ProtocolSession {
   /** Requirement id and design of every check so far. */
   private checked = new Set<string>();
 
-  constructor(readonly blocks: BlockResult[], readonly requirements: DeclaredRequirement[]) {}
+  constructor(
+    readonly blocks: BlockResult[],
+    readonly requirements: DeclaredRequirement[],
+    /** Told of each exhibit once accepted, with the run so far. */
+    private readonly onExhibit: (exhibit: Exhibit, progress: RunProgress) => void = () => {},
+  ) {}
 
   line(line: string): void {
     if (!line.startsWith(this.nonce)) {
@@ -358,7 +369,7 @@ class ProtocolSession {
     }
     if (this.violation !== undefined) return;
     try {
-      this.accept(JSON.parse(line.slice(this.nonce.length), decodeNumbers));
+      this.accept(decodeMessage(line.slice(this.nonce.length)) as HarnessMessage);
     } catch (error) {
       this.violation = error instanceof Error ? error.message : String(error);
     }
@@ -403,6 +414,7 @@ class ProtocolSession {
         const exhibit = checkedExhibit(message.exhibit);
         if (exhibit.type === "check") this.judge(exhibit);
         this.attach(exhibit);
+        this.onExhibit(exhibit, this);
         return;
       }
       case "error":
@@ -494,7 +506,7 @@ async function superviseChild(
   const writer = child.stdin.getWriter();
   // The input first: the child waits for it.
   const sending = writer.write(
-    new TextEncoder().encode(JSON.stringify(input, encodeNumbers) + "\n"),
+    new TextEncoder().encode(encodeMessage(input) + "\n"),
   ).catch(() => {}).then(onInputSent);
   const [status] = await Promise.all([
     child.status,

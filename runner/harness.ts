@@ -7,8 +7,8 @@
 // away (standard input closes) or its own time is up, so a runaway worksheet
 // cannot outlive the runner. No worksheet code ever runs on this thread.
 import {
-  decodeNumbers,
-  encodeNumbers,
+  decodeMessage,
+  encodeMessage,
   type HarnessInput,
   type HarnessMessage,
   type HostStart,
@@ -31,7 +31,7 @@ async function readInput(): Promise<HarnessInput> {
     if (done) Deno.exit(exitCodes.parentGone);
     text += decoder.decode(value, { stream: true });
   }
-  return JSON.parse(text.slice(0, text.indexOf("\n")), decodeNumbers) as HarnessInput;
+  return decodeMessage(text.slice(0, text.indexOf("\n"))) as HarnessInput;
 }
 
 // The worker first: it boots and loads the library while the input is on its way.
@@ -53,7 +53,7 @@ function send(message: HarnessMessage): void {
     const { nonce } = await inputReady;
     while (queue.length > 0) {
       // A leading newline ends any partial line the worksheet printed itself.
-      const bytes = encoder.encode(`\n${nonce}${JSON.stringify(queue.shift(), encodeNumbers)}\n`);
+      const bytes = encoder.encode(`\n${nonce}${encodeMessage(queue.shift())}\n`);
       let written = 0;
       while (written < bytes.length) written += await Deno.stdout.write(bytes.subarray(written));
     }

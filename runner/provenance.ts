@@ -24,7 +24,8 @@ export function packageVersions(): { name: string; version: string }[] {
     const pinned = lock.specifiers?.[target];
     out.push({ name: m[1]!, version: (pinned ?? m[2]!).split("_")[0]! });
   }
-  return out.sort((a, b) => a.name.localeCompare(b.name));
+  // In code-unit order (npm names are lower case): no locale collator, the same on every machine.
+  return out.sort((a, b) => (a.name < b.name ? -1 : a.name > b.name ? 1 : 0));
 }
 
 /**

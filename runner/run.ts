@@ -15,11 +15,14 @@ import {
 } from "../record/manifest.ts";
 import type {
   ExecutionResult,
+  Exhibit,
   ParamValue,
+  RunProgress,
   SourceProblem,
   Verdict,
   Worksheet,
 } from "../record/types.ts";
+import type { FigureDraft } from "../render/write.ts";
 import { requirementRows } from "../record/verdict.ts";
 import {
   disposeSandbox,
@@ -118,6 +121,7 @@ function importOnce<T>(load: () => Promise<T>): () => Promise<T> {
 const parser = importOnce(() => import("./parse.ts"));
 const reportWriter = importOnce(() => import("../render/write.ts"));
 const approvalsModule = importOnce(() => import("../record/approvals.ts"));
+const proseRenderer = importOnce(() => import("../render/html.ts"));
 
 let toolHash: string | undefined;
 
@@ -243,12 +247,24 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
       };
     }
     step("read and parse the worksheet, apply settings");
+    // Figures are drawn as they arrive, while the worksheet still computes (write.ts
+    // takes a draft only when its context is unchanged at the end).
+    const drafts = new Map<Exhibit, FigureDraft>();
+    let drafting: Promise<void> = Promise.resolve();
+    const onExhibit = (exhibit: Exhibit, progress: RunProgress) => {
+      if (exhibit.type !== "figure") return;
+      drafting = drafting.then(async () => {
+        const { draftFigure } = await reportWriter();
+        drafts.set(exhibit, await draftFigure(exhibit, progress));
+      }).catch(() => {}); // a figure that cannot be drafted is drawn with the report
+    };
     const execute = (early?: Sandbox, onInputSent?: () => void) =>
       executeWorksheet(worksheet, params, {
         ...options,
         ...(libraryModule ? { libraryModule } : {}),
         ...(early ? { sandbox: early } : {}),
         ...(onInputSent ? { onInputSent } : {}),
+        onExhibit,
       });
     // A child started early runs now: the text differs from the report's (or the run is
     // forced), so the report cannot stand. The hashing below overlaps with the run.
@@ -288,6 +304,12 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
       return summary;
     }
 
+    if (running !== undefined) {
+      // The page's prose does not depend on the run: rendered while the child computes.
+      const { proseToHtml } = await proseRenderer();
+      for (const part of worksheet.parts) if (part.kind === "prose") proseToHtml(part.markdown);
+      step("render the prose while the child computes");
+    }
     const execution: ExecutionResult = running !== undefined
       ? await running
       : problem === undefined
@@ -309,6 +331,7 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
       for (const [label, ms] of lines) if (ms !== undefined) timings.push([label, ms]);
     }
     const { writeReport } = await writer;
+    await drafting;
     const report = await writeReport(outDir, folderName, {
       worksheet,
       params,
@@ -317,6 +340,7 @@ export async function runWorksheet(path: string, options: RunOptions = {}): Prom
       inputs,
       worksheetId: name.identity,
       approvals,
+      drafts,
       provenance: {
         worksheetPath: name.display,
         worksheetSha256: sha256Hex(text),

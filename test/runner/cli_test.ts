@@ -368,7 +368,7 @@ Deno.test("cli: run --timings says where the time went", async () => {
         /start Deno and load the command line +\d+\.\d ms/,
         /run the worksheet in its sandbox child +\d+\.\d ms/,
         /child: worksheet code +\d+\.\d ms/,
-        /figure 1: drawn \(magnitude\) +\d+\.\d ms/,
+        /figure 1: drawn (while the worksheet ran )?\(magnitude\) +\d+\.\d ms/,
         /manifest and swap into place +\d+\.\d ms/,
       ]
     ) assert.match(r.stdout, step);
