@@ -3,7 +3,7 @@
 // signed build records (hash every file, compare a fresh build byte for byte).
 import assert from "node:assert/strict";
 import { join, relative } from "node:path";
-import { tapsheet } from "./_cli.ts";
+import { root, tapsheet } from "./_cli.ts";
 import { sha256Hex } from "../../record/manifest.ts";
 
 const sheet = (limit = 3) =>
@@ -270,5 +270,26 @@ Deno.test("verify: a report made in a batch, after other figures, verifies on it
     }
   } finally {
     await Deno.remove(dir, { recursive: true });
+  }
+});
+
+Deno.test("verify: every demo worksheet's report is reproduced byte for byte by a fresh run", async () => {
+  // A worksheet that records something of the run itself (a time taken) can never verify;
+  // the demos are the templates users start from, so each must.
+  const out = await Deno.makeTempDir();
+  try {
+    const demos = [...Deno.readDirSync(join(root, "worksheets"))]
+      .filter((e) => e.isFile && e.name.endsWith(".md")).map((e) =>
+        join(root, "worksheets", e.name)
+      );
+    assert.ok(demos.length >= 4);
+    const r = await tapsheet(["run", ...demos, "--out", out, "--exit-zero"]);
+    assert.equal(r.code, 0, r.stderr);
+    for (const demo of demos) {
+      const v = await tapsheet(["verify", demo, "--out", out]);
+      assert.equal(v.code, 0, `${demo}: ${v.stdout}`);
+    }
+  } finally {
+    await Deno.remove(out, { recursive: true });
   }
 });
