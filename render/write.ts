@@ -135,33 +135,23 @@ export async function writeReport(
     ).map((exhibit, i) => {
       const stem = `figures/${String(i + 1).padStart(2, "0")}-${slug(exhibit.title)}`;
       const context = figureContext(exhibit, content.execution);
+      // A draft made in the same context is what would be made now.
       const draft = content.drafts?.get(exhibit);
-      if (draft !== undefined && draft.context === JSON.stringify(context)) {
-        const reused = previous.get(draft.specText);
-        return {
-          ...draft,
-          exhibit,
-          stem,
-          svg: reused ?? draft.svg,
-          how: reused ? "reused" : "drafted",
-        };
-      }
-      const spec = figureToVegaLite(exhibit, context);
-      const specText = specTextOf(spec);
+      const made = draft?.context === JSON.stringify(context) ? draft : undefined;
+      const spec = made?.spec ?? figureToVegaLite(exhibit, context);
+      const specText = made?.specText ?? specTextOf(spec);
       // A figure whose specification is unchanged is not rendered again.
       const reused = previous.get(specText);
-      return { exhibit, stem, spec, specText, svg: reused, how: reused ? "reused" : "drawn" };
+      const svg = reused ?? made?.svg;
+      const how = reused ? "reused" : made ? "drawn while the worksheet ran" : "drawn";
+      return { exhibit, stem, spec, specText, svg, how };
     });
     step(`${drawn.length} figure specifications`);
     for (const [i, f] of drawn.entries()) {
       await write(`${f.stem}.vl.json`, f.specText);
       const svg = f.svg ?? await figureSvg(f.spec);
       figures.set(f.exhibit, await write(`${f.stem}.svg`, svg, f.exhibit.title));
-      step(
-        `figure ${i + 1}: ${
-          f.how === "drafted" ? "drawn while the worksheet ran" : f.how
-        } (${f.exhibit.kind})`,
-      );
+      step(`figure ${i + 1}: ${f.how} (${f.exhibit.kind})`);
     }
 
     // Every coefficient listing is also a CSV file of the report: its SHA-256 is the listing's.

@@ -1,5 +1,6 @@
 import assert from "node:assert/strict";
 import { reportOrder } from "../../render/index_page.ts";
+import { runToEnd } from "../_process.ts";
 
 Deno.test("reports index: names in order of their letters without regard to case, then code units", async () => {
   // source: Python's sorted(key=lambda s: (s.lower(), s)), outside this project, as the reference order
@@ -16,17 +17,11 @@ Deno.test("reports index: names in order of their letters without regard to case
     "x2",
     "x10",
   ];
-  const py = new Deno.Command("/usr/bin/python3", {
-    args: [
-      "-c",
-      "import json,sys; print(json.dumps(sorted(json.load(sys.stdin), key=lambda s: (s.lower(), s))))",
-    ],
-    stdin: "piped",
-    stdout: "piped",
-  }).spawn();
-  const writer = py.stdin.getWriter();
-  await writer.write(new TextEncoder().encode(JSON.stringify(names)));
-  await writer.close();
-  const expected = JSON.parse(new TextDecoder().decode((await py.output()).stdout));
+  const py = await runToEnd("/usr/bin/python3", [
+    "-c",
+    "import json,sys; print(json.dumps(sorted(json.loads(sys.argv[1]), key=lambda s: (s.lower(), s))))",
+    JSON.stringify(names),
+  ]);
+  const expected = JSON.parse(py.stdout);
   assert.deepEqual([...names].sort(reportOrder), expected);
 });

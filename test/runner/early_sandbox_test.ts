@@ -7,6 +7,7 @@ import { join } from "node:path";
 import { disposeSandbox, executeWorksheet, startSandbox } from "../../runner/execute.ts";
 import { parseWorksheet } from "../../runner/parse.ts";
 import { runWorksheet } from "../../runner/run.ts";
+import { runToEnd } from "../_process.ts";
 
 const basic = "test/runner/fixtures/basic.md";
 
@@ -105,8 +106,7 @@ Deno.test("early sandbox: a run that fails while its child computes ends the chi
     const before = await runFolders();
     await assert.rejects(runWorksheet(sheet, { outDir: join(dir, "reports") }), /approvals/i);
     assert.deepEqual(await runFolders(), before);
-    const children = new Deno.Command("pgrep", { args: ["-P", String(Deno.pid)], stdout: "piped" });
-    const listed = new TextDecoder().decode((await children.output()).stdout).trim();
+    const listed = (await runToEnd("pgrep", ["-P", String(Deno.pid)])).stdout.trim();
     assert.equal(
       listed.split("\n").filter((pid) => pid !== "" && alive(Number(pid))).length,
       0,

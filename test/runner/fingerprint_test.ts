@@ -1,11 +1,11 @@
 import assert from "node:assert/strict";
 import { join } from "node:path";
 import { hashOfFiles } from "../../runner/fingerprint.ts";
+import { runToEnd } from "../_process.ts";
 
-/** SHA-256 of some bytes by the system's sha256sum (GNU coreutils), outside this project. */
+/** SHA-256 of a file by the system's sha256sum (GNU coreutils), outside this project. */
 async function sha256sum(path: string): Promise<string> {
-  const out = await new Deno.Command("sha256sum", { args: [path], stdout: "piped" }).output();
-  return new TextDecoder().decode(out.stdout).split(" ")[0]!;
+  return (await runToEnd("sha256sum", [path])).stdout.split(" ")[0]!;
 }
 
 Deno.test("hashOfFiles: one SHA-256 over each file's relative path and digest, folders in name order, links followed", async () => {
@@ -23,18 +23,12 @@ Deno.test("hashOfFiles: one SHA-256 over each file's relative path and digest, f
     const listing = (
       await Promise.all(names.map(async (n) => `${n} ${await sha256sum(join(root, n))}\n`))
     ).join("");
-    const py = await new Deno.Command("/usr/bin/python3", {
-      args: [
-        "-c",
-        "import hashlib,sys; print(hashlib.sha256(sys.stdin.buffer.read()).hexdigest())",
-      ],
-      stdin: "piped",
-      stdout: "piped",
-    }).spawn();
-    const writer = py.stdin.getWriter();
-    await writer.write(new TextEncoder().encode(listing));
-    await writer.close();
-    const expected = new TextDecoder().decode((await py.output()).stdout).trim();
+    const py = await runToEnd("/usr/bin/python3", [
+      "-c",
+      "import hashlib,sys; print(hashlib.sha256(sys.argv[1].encode()).hexdigest())",
+      listing,
+    ]);
+    const expected = py.stdout.trim();
     assert.equal(hashOfFiles(root, ["a", "missing"]), expected);
 
     // Digests kept in `known` give the same hash, and are used in place of the files.
