@@ -8,6 +8,7 @@
 // direct/overlap-add crossover) come from the groups below.
 import { kernel } from "../lib/fft/_fftjs.ts";
 import { fftPlan, transformInterleaved } from "../lib/fft/_radix4.ts";
+import { setKernelEnabled } from "../lib/fft/_kernel.ts";
 import { complexFft, inverseRealFft, realFft } from "../lib/fft/mod.ts";
 import { applyFir, applyFirDirect } from "../lib/fir/apply.ts";
 import { applyFirOverlapAdd } from "../lib/fir/overlap_add.ts";
@@ -61,6 +62,61 @@ for (const size of [16, 1024, 16384, 65536]) {
     fn: () => void inverseRealFft(spectrum, size),
   });
 }
+// ---------------------------------------------------------------- WebAssembly kernel
+// The public functions with the WebAssembly kernel (lib/fft/_kernel.wat) and
+// with it turned off (the TypeScript kernel); both give the same bits.
+for (const size of [64, 1024, 16384, 65536]) {
+  const x = whiteNoise(size, { seed: size });
+  const spectrum = realFft(x);
+  const group = `FFT kernel, real N=${size}`;
+  const timed = (on: boolean, fn: () => unknown) => () => {
+    setKernelEnabled(on);
+    fn();
+    setKernelEnabled(true);
+  };
+  Deno.bench({
+    name: `realFft, TypeScript kernel, N=${size}`,
+    group,
+    baseline: true,
+    fn: timed(false, () => realFft(x)),
+  });
+  Deno.bench({
+    name: `realFft, WebAssembly kernel, N=${size}`,
+    group,
+    fn: timed(true, () => realFft(x)),
+  });
+  Deno.bench({
+    name: `inverseRealFft, TypeScript kernel, N=${size}`,
+    group,
+    fn: timed(false, () => inverseRealFft(spectrum, size)),
+  });
+  Deno.bench({
+    name: `inverseRealFft, WebAssembly kernel, N=${size}`,
+    group,
+    fn: timed(true, () => inverseRealFft(spectrum, size)),
+  });
+}
+{
+  const x = whiteNoise(100_000, { seed: 11 });
+  const h = whiteNoise(255, { seed: 12 });
+  const group = "FFT kernel, overlap-add 255 taps, 1e5 samples";
+  Deno.bench({
+    name: "applyFirOverlapAdd, TypeScript kernel",
+    group,
+    baseline: true,
+    fn: () => {
+      setKernelEnabled(false);
+      applyFirOverlapAdd(h, x);
+      setKernelEnabled(true);
+    },
+  });
+  Deno.bench({
+    name: "applyFirOverlapAdd, WebAssembly kernel",
+    group,
+    fn: () => void applyFirOverlapAdd(h, x),
+  });
+}
+
 {
   // Bluestein: a length with a large prime factor against the next power of two.
   const x = whiteNoise(65521, { seed: 3 });

@@ -1,7 +1,9 @@
 // Private DFT engine on split arrays (real parts and imaginary parts apart):
-// tapsheet's radix-4 kernel (_radix4.ts) for powers of two, Bluestein's
-// chirp-z algorithm for other lengths, and the real transforms by packing N
-// real samples into N/2 complex ones.
+// tapsheet's radix-4 kernel for powers of two (in WebAssembly, _kernel.ts,
+// from 16 complex points where it is available; in TypeScript, _radix4.ts,
+// otherwise: the same bits either way), Bluestein's chirp-z algorithm for
+// other lengths, and the real transforms by packing N real samples into N/2
+// complex ones.
 //
 // fft.js is no longer used here. Measured per power of two from 1 to 2^17
 // (bench/analysis_bench.ts, Deno 2.9 on x86-64, against the previous fft.js
@@ -12,6 +14,7 @@
 // kernels alone: fft.js is faster at N = 2 and 4 complex points, by 3–5 ns of
 // a call that costs about 400 ns in all, so there is no size worth switching at.
 import { type FftPlan, fftPlan, transformInterleaved, transformSplit } from "./_radix4.ts";
+import { kernelMinimumSize, wasmKernel } from "./_kernel.ts";
 
 /** Real and imaginary parts of a complex sequence. */
 export interface Split {
@@ -50,6 +53,23 @@ export function newSplits(n: number, count: number): Split[] {
 /** One pair of zeroed arrays of n values, laid out as by {@link newSplits}. */
 export function newSplit(n: number): Split {
   return newSplits(n, 1)[0]!;
+}
+
+/**
+ * Forward DFT of the plan's N complex values in inRe/inIm into re/im: the
+ * WebAssembly kernel from {@link kernelMinimumSize} points on where it is
+ * available, the TypeScript kernel otherwise (the same bits either way).
+ */
+export function forwardSplit(
+  plan: FftPlan,
+  inRe: Float64Array,
+  inIm: Float64Array,
+  re: Float64Array,
+  im: Float64Array,
+): void {
+  const kernel = plan.size >= kernelMinimumSize ? wasmKernel() : undefined;
+  if (kernel !== undefined) kernel.forwardSplit(inRe, inIm, re, im);
+  else transformSplit(plan, inRe, inIm, re, im);
 }
 
 /** True when n is a power of two ≥ 1. */
@@ -114,7 +134,7 @@ function bluesteinPlan(n: number): BluesteinPlan {
     }
   }
   const plan = fftPlan(size);
-  transformSplit(plan, bRe, bIm, filter.re, filter.im);
+  forwardSplit(plan, bRe, bIm, filter.re, filter.im);
   const bluestein: BluesteinPlan = {
     plan,
     chirpRe,
@@ -153,7 +173,7 @@ function bluestein(
     inRe[i] = xr * cr - xi * ci;
     inIm[i] = xr * ci + xi * cr;
   }
-  transformSplit(plan, inRe, inIm, specRe, specIm);
+  forwardSplit(plan, inRe, inIm, specRe, specIm);
   for (let i = 0; i < plan.size; i++) {
     const ar = specRe[i]!, ai = specIm[i]!;
     const br = filterRe[i]!, bi = filterIm[i]!;
@@ -162,7 +182,7 @@ function bluestein(
   }
   // Inverse by exchanging real and imaginary parts on the way in and out
   // (the 1/size is in the filter): the convolution is specRe + j·specIm.
-  transformSplit(plan, prodIm, prodRe, specIm, specRe);
+  forwardSplit(plan, prodIm, prodRe, specIm, specRe);
   for (let i = 0; i < n; i++) {
     const yr = specRe[i]!, yi = specIm[i]!;
     const cr = chirpRe[i]!, ci = chirpIm[i]!;
@@ -178,7 +198,7 @@ function bluestein(
 export function forwardComplex(re: Float64Array, im: Float64Array): Split {
   const n = re.length;
   const out = newSplit(n);
-  if (powerOfTwo(n)) transformSplit(fftPlan(n), re, im, out.re, out.im);
+  if (powerOfTwo(n)) forwardSplit(fftPlan(n), re, im, out.re, out.im);
   else bluestein(re, im, out.re, out.im);
   return out;
 }
@@ -235,6 +255,20 @@ function realPlan(n: number): RealPlan {
   makeRoom(realPlans, maxPlans);
   realPlans.set(n, plan);
   return plan;
+}
+
+/**
+ * Half spectrum X[0 … ⌊N/2⌋] of N real samples in new arrays (which may share
+ * one buffer): the WebAssembly kernel's real transform for powers of two from
+ * 2·{@link kernelMinimumSize} on where it is available, {@link realHalf}
+ * otherwise (the same bits either way). `input` must hold exactly N samples.
+ */
+export function realHalfSpectrum(input: Float64Array, n: number): Split {
+  const kernel = powerOfTwo(n) && n >= 2 * kernelMinimumSize ? wasmKernel() : undefined;
+  if (kernel !== undefined) return kernel.realForward(input, n);
+  const out = newSplit(Math.floor(n / 2) + 1);
+  realHalf(input, n, out.re, out.im);
+  return out;
 }
 
 /**
@@ -303,12 +337,8 @@ export function realHalf(input: Float64Array, n: number, re: Float64Array, im: F
  * Hermitian spectrum through the complex inverse.
  */
 export function inverseRealHalf(re: Float64Array, im: Float64Array, n: number): Float64Array {
-  const out = new Float64Array(n);
   const half = Math.floor(n / 2);
-  if (n === 1) {
-    out[0] = re[0]!;
-    return out;
-  }
+  if (n === 1) return Float64Array.of(re[0]!);
   if (!powerOfTwo(n)) {
     const fullRe = new Float64Array(n);
     const fullIm = new Float64Array(n);
@@ -326,6 +356,8 @@ export function inverseRealHalf(re: Float64Array, im: Float64Array, n: number): 
     return x;
   }
   const m = half;
+  const kernel = m >= kernelMinimumSize ? wasmKernel() : undefined;
+  if (kernel !== undefined) return kernel.realInverse(re, im, n);
   const { plan, twiddles: t, workRe: zr, workIm: zi, outRe, outIm } = realPlan(n);
   zr[0] = 0.5 * (re[0]! + re[m]!);
   zi[0] = 0.5 * (re[0]! - re[m]!);
@@ -349,6 +381,7 @@ export function inverseRealHalf(re: Float64Array, im: Float64Array, n: number): 
   }
   // Inverse M-point transform with real and imaginary parts exchanged: z = outRe + j·outIm.
   transformSplit(plan, zi, zr, outIm, outRe);
+  const out = new Float64Array(n);
   const scale = 1 / m;
   for (let i = 0; i < m; i++) {
     out[2 * i] = outRe[i]! * scale;

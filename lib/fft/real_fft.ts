@@ -1,5 +1,5 @@
 import { requireInteger, requireSamples } from "../_validate.ts";
-import { inverseRealHalf, newSplit, realHalf } from "./_engine.ts";
+import { inverseRealHalf, realHalfSpectrum } from "./_engine.ts";
 import type { ComplexSamples } from "./complex_fft.ts";
 
 /** Options for {@link realFft}. */
@@ -56,8 +56,7 @@ export function realFft(signal: ArrayLike<number>, options: RealFftOptions = {})
     input = new Float64Array(size);
     input.set(signal);
   }
-  const { re, im } = newSplit(Math.floor(size / 2) + 1);
-  realHalf(input, size, re, im);
+  const { re, im } = realHalfSpectrum(input, size);
   if (typed && !Number.isFinite(re[0]!)) requireSamples("Signal", signal);
   return { re, im };
 }

@@ -1,6 +1,7 @@
 import { requireInteger, requireSamples } from "../_validate.ts";
 import { newSplits, type Split } from "../fft/_engine.ts";
 import { fftPlan, transformSplit, transformSplitTimes } from "../fft/_radix4.ts";
+import { kernelMinimumSize, wasmKernel } from "../fft/_kernel.ts";
 
 /** Options for {@link applyFirOverlapAdd}. */
 export interface OverlapAddOptions {
@@ -90,14 +91,16 @@ export function applyFirOverlapAdd(
   requireSamples("Signal", signal, 0);
   const n = taps.length;
   const length = signal.length;
-  const y = new Float64Array(length);
-  if (length === 0) return y;
+  if (length === 0) return new Float64Array(0);
   const m = options.fftLength ?? defaultFftLength(n, length);
   requireInteger("FFT length", m, n + 1);
   if ((m & (m - 1)) !== 0) throw new RangeError(`FFT length must be a power of two, got ${m}`);
   const block = m - n + 1;
-  const plan = fftPlan(m);
   const x = signal instanceof Float64Array ? signal : Float64Array.from(signal);
+  // The WebAssembly kernel runs the same block loop with the same arithmetic.
+  const kernel = m >= kernelMinimumSize ? wasmKernel() : undefined;
+  if (kernel !== undefined) return kernel.overlapAdd(taps, x, m);
+  const plan = fftPlan(m);
 
   // Filter spectrum, scaled by 1/M so the inverse needs no extra pass.
   const [padded, filter, input, result] = newSplits(m, 4) as [Split, Split, Split, Split];
@@ -107,6 +110,7 @@ export function applyFirOverlapAdd(
   // Block 0 as real parts of `input`, block 1 as imaginary parts; values from
   // `block` on stay 0. The padded taps' arrays then hold the product of spectra.
   const product = padded;
+  const y = new Float64Array(length);
   let written = 0;
   for (let start = 0; start < length; start += 2 * block) {
     const second = start + block;
