@@ -65,56 +65,42 @@ for (const size of [16, 1024, 16384, 65536]) {
 // ---------------------------------------------------------------- WebAssembly kernel
 // The public functions with the WebAssembly kernel (lib/fft/_kernel.wat) and
 // with it turned off (the TypeScript kernel); both give the same bits.
+const kernels = [["TypeScript", false], ["WebAssembly", true]] as const;
+/** fn run with the WebAssembly kernel on or off (it is on otherwise). */
+const withKernel = (on: boolean, fn: () => unknown) => () => {
+  setKernelEnabled(on);
+  fn();
+  setKernelEnabled(true);
+};
 for (const size of [64, 1024, 16384, 65536]) {
   const x = whiteNoise(size, { seed: size });
   const spectrum = realFft(x);
   const group = `FFT kernel, real N=${size}`;
-  const timed = (on: boolean, fn: () => unknown) => () => {
-    setKernelEnabled(on);
-    fn();
-    setKernelEnabled(true);
-  };
-  Deno.bench({
-    name: `realFft, TypeScript kernel, N=${size}`,
-    group,
-    baseline: true,
-    fn: timed(false, () => realFft(x)),
-  });
-  Deno.bench({
-    name: `realFft, WebAssembly kernel, N=${size}`,
-    group,
-    fn: timed(true, () => realFft(x)),
-  });
-  Deno.bench({
-    name: `inverseRealFft, TypeScript kernel, N=${size}`,
-    group,
-    fn: timed(false, () => inverseRealFft(spectrum, size)),
-  });
-  Deno.bench({
-    name: `inverseRealFft, WebAssembly kernel, N=${size}`,
-    group,
-    fn: timed(true, () => inverseRealFft(spectrum, size)),
-  });
+  for (const [name, on] of kernels) {
+    Deno.bench({
+      name: `realFft, ${name} kernel, N=${size}`,
+      group,
+      baseline: !on,
+      fn: withKernel(on, () => realFft(x)),
+    });
+    Deno.bench({
+      name: `inverseRealFft, ${name} kernel, N=${size}`,
+      group,
+      fn: withKernel(on, () => inverseRealFft(spectrum, size)),
+    });
+  }
 }
 {
   const x = whiteNoise(100_000, { seed: 11 });
   const h = whiteNoise(255, { seed: 12 });
-  const group = "FFT kernel, overlap-add 255 taps, 1e5 samples";
-  Deno.bench({
-    name: "applyFirOverlapAdd, TypeScript kernel",
-    group,
-    baseline: true,
-    fn: () => {
-      setKernelEnabled(false);
-      applyFirOverlapAdd(h, x);
-      setKernelEnabled(true);
-    },
-  });
-  Deno.bench({
-    name: "applyFirOverlapAdd, WebAssembly kernel",
-    group,
-    fn: () => void applyFirOverlapAdd(h, x),
-  });
+  for (const [name, on] of kernels) {
+    Deno.bench({
+      name: `applyFirOverlapAdd, ${name} kernel`,
+      group: "FFT kernel, overlap-add 255 taps, 1e5 samples",
+      baseline: !on,
+      fn: withKernel(on, () => applyFirOverlapAdd(h, x)),
+    });
+  }
 }
 
 {

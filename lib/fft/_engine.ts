@@ -284,7 +284,7 @@ export function realHalfSpectrum(input: Float64Array, n: number): Split {
  * Processing, 3rd ed., Problem 8.60; common practice). Other lengths: a
  * complex transform of the real signal.
  */
-export function realHalf(input: Float64Array, n: number, re: Float64Array, im: Float64Array): void {
+function realHalf(input: Float64Array, n: number, re: Float64Array, im: Float64Array): void {
   const half = Math.floor(n / 2);
   if (n === 1) {
     re[0] = input[0]!;
@@ -356,7 +356,7 @@ export function inverseRealHalf(re: Float64Array, im: Float64Array, n: number): 
     return x;
   }
   const m = half;
-  const kernel = m >= kernelMinimumSize ? wasmKernel() : undefined;
+  const kernel = n >= 2 * kernelMinimumSize ? wasmKernel() : undefined;
   if (kernel !== undefined) return kernel.realInverse(re, im, n);
   const { plan, twiddles: t, workRe: zr, workIm: zi, outRe, outIm } = realPlan(n);
   zr[0] = 0.5 * (re[0]! + re[m]!);

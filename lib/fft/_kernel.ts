@@ -20,25 +20,21 @@
 import { type FftPlan, fftPlan } from "./_radix4.ts";
 import { kernelBase64 } from "./_kernel_wasm.ts";
 
+/** A first pass: from split input at srcRe/srcIm into re/im, with the plan's bit reversal. */
+type FirstPass = (
+  srcRe: number,
+  srcIm: number,
+  re: number,
+  im: number,
+  rev: number,
+  groups: number,
+) => void;
+
 /** The kernel's exports (see _kernel.wat for what each does). */
 interface Exports {
   memory: WebAssembly.Memory;
-  firstPass8(
-    srcRe: number,
-    srcIm: number,
-    re: number,
-    im: number,
-    rev: number,
-    groups: number,
-  ): void;
-  firstPass4(
-    srcRe: number,
-    srcIm: number,
-    re: number,
-    im: number,
-    rev: number,
-    groups: number,
-  ): void;
+  firstPass8: FirstPass;
+  firstPass4: FirstPass;
   stages(re: number, im: number, size: number, quarter: number, tw: number, below: number): number;
   lastStageTimes(
     re: number,
@@ -277,6 +273,8 @@ class Kernel {
     f.fill(0, inIm / 8, inIm / 8 + m);
     for (let k = 0; k < n; k++) f[inRe / 8 + k] = taps[k]! / m;
     this.#transform(t, inRe, inIm, hRe, hIm, m);
+    // The taps were in inRe; those at `block` and beyond (more taps than M/2)
+    // are not overwritten by the blocks below.
     f.fill(0, inRe / 8 + block, inRe / 8 + m);
     f.fill(0, out / 8, out / 8 + chunk + m);
     const y = new Float64Array(length);

@@ -10,6 +10,7 @@ import {
   zeroPadToPowerOfTwo,
 } from "../../../lib/fft/mod.ts";
 import { assertClose } from "../../_tolerance.ts";
+import { minimalStandard } from "./_inputs.ts";
 
 interface ComplexJson {
   re: number[];
@@ -76,18 +77,10 @@ function naiveDft(re: Float64Array, im: Float64Array): { re: Float64Array; im: F
   return { re: outRe, im: outIm };
 }
 
-function pseudoRandom(n: number, seed: number): Float64Array {
-  let s = seed;
-  return Float64Array.from({ length: n }, () => {
-    s = (s * 16807) % 2147483647;
-    return s / 2147483647 - 0.5;
-  });
-}
-
 Deno.test("Bluestein (and radix-4) path equals a direct DFT", () => {
   for (const n of [1, 2, 3, 4, 6, 9, 11, 31, 64, 97, 210, 243, 500]) {
-    const re = pseudoRandom(n, 11 + n);
-    const im = pseudoRandom(n, 29 + n);
+    const re = minimalStandard(n, 11 + n);
+    const im = minimalStandard(n, 29 + n);
     const fast = complexFft({ re, im });
     const slow = naiveDft(re, im);
     // property: FFT path equals direct path; tolerance grows with the sum of N terms of size ≤ 0.5
@@ -99,8 +92,8 @@ Deno.test("Bluestein (and radix-4) path equals a direct DFT", () => {
 
 Deno.test("inverse transforms undo the forward transforms", () => {
   for (const n of [1, 2, 5, 8, 13, 100, 128, 1000, 1024, 4093]) {
-    const re = pseudoRandom(n, 3 * n + 1);
-    const im = pseudoRandom(n, 5 * n + 2);
+    const re = minimalStandard(n, 3 * n + 1);
+    const im = minimalStandard(n, 5 * n + 2);
     const back = inverseComplexFft(complexFft({ re, im }));
     assertClose(back.re, re, { abs: 1e-14 * Math.log2(n + 1) }, `complex N=${n}`);
     assertClose(back.im, im, { abs: 1e-14 * Math.log2(n + 1) }, `complex N=${n}`);
@@ -111,7 +104,7 @@ Deno.test("inverse transforms undo the forward transforms", () => {
 
 Deno.test("Parseval: Σ|x|² = (1/N) Σ|X|² (Oppenheim & Schafer §8.6.5)", () => {
   for (const n of [7, 64, 100, 1023]) {
-    const x = pseudoRandom(n, 77 + n);
+    const x = minimalStandard(n, 77 + n);
     const X = realFft(x);
     const energy = x.reduce((s, v) => s + v * v, 0);
     let spectral = 0;
@@ -127,7 +120,7 @@ Deno.test("Parseval: Σ|x|² = (1/N) Σ|X|² (Oppenheim & Schafer §8.6.5)", () 
 
 Deno.test("real FFT of a real signal equals the complex FFT's first half", () => {
   for (const n of [6, 16, 21]) {
-    const x = pseudoRandom(n, n);
+    const x = minimalStandard(n, n);
     const half = realFft(x);
     const full = complexFft({ re: x });
     assertClose(half.re, full.re.slice(0, Math.floor(n / 2) + 1), { abs: 1e-13 }, `N=${n}`);
@@ -136,7 +129,7 @@ Deno.test("real FFT of a real signal equals the complex FFT's first half", () =>
 });
 
 Deno.test("realSpectrum keeps its power-of-two behaviour", () => {
-  const x = pseudoRandom(100, 5);
+  const x = minimalStandard(100, 5);
   const a = realSpectrum(x, 128);
   const b = realFft(x, { size: 128 });
   // two different pow-2 algorithms (fft.js real transform, packed complex transform)

@@ -12,17 +12,7 @@ import { complexFft, inverseComplexFft, inverseRealFft, realFft } from "../../..
 import { applyFirOverlapAdd } from "../../../lib/fir/overlap_add.ts";
 import { assembleKernel, kernelModuleText } from "../../../tools/kernel_assembly.ts";
 import { runToEnd } from "../../_process.ts";
-
-/** Park & Miller's minimal standard generator, values in [−0.5, 0.5). */
-function noise(n: number, seed: number): Float64Array {
-  const out = new Float64Array(n);
-  let s = seed;
-  for (let i = 0; i < n; i++) {
-    s = (s * 16807) % 2147483647;
-    out[i] = s / 2147483647 - 0.5;
-  }
-  return out;
-}
+import { minimalStandard } from "./_inputs.ts";
 
 /** The same values bit for bit (−0 and +0 count as equal), with the first difference named. */
 function assertSameBits(a: ArrayLike<number>, b: ArrayLike<number>, what: string): void {
@@ -72,8 +62,8 @@ Deno.test("the kernel loads in a process with the sandbox's V8 flags", async () 
 
 Deno.test("real and complex transforms: the same bits from both kernels, 2 to 2^17 points", () => {
   for (let n = 2; n <= 1 << 17; n *= 2) {
-    const x = noise(n, n + 1);
-    const y = noise(n, 7 * n + 3);
+    const x = minimalStandard(n, n + 1);
+    const y = minimalStandard(n, 7 * n + 3);
     const [wasm, ts] = bothKernels(() => {
       const real = realFft(x);
       const complex = complexFft({ re: x, im: y });
@@ -96,7 +86,7 @@ Deno.test("real and complex transforms: the same bits from both kernels, 2 to 2^
 
 Deno.test("Bluestein lengths (power-of-two convolutions inside): the same bits from both kernels", () => {
   for (const n of [15, 100, 1000, 4099]) {
-    const x = noise(n, n);
+    const x = minimalStandard(n, n);
     const [wasm, ts] = bothKernels(() => ({
       real: realFft(x),
       inverse: inverseRealFft(realFft(x), n),
@@ -122,8 +112,8 @@ Deno.test("overlap-add: the same bits from both kernels, across chunks and ragge
     [1, 33, 16],
   ];
   for (const [taps, length, fftLength] of cases) {
-    const h = noise(taps, taps + 11);
-    const x = noise(length, length);
+    const h = minimalStandard(taps, taps + 11);
+    const x = minimalStandard(length, length);
     const options = fftLength === undefined ? {} : { fftLength };
     const [wasm, ts] = bothKernels(() => applyFirOverlapAdd(h, x, options));
     assertSameBits(wasm, ts, `${taps} taps, ${length} samples, M=${fftLength ?? "default"}`);
@@ -133,10 +123,10 @@ Deno.test("overlap-add: the same bits from both kernels, across chunks and ragge
 Deno.test("the kernel's results do not depend on what it computed before", () => {
   // Tables of many sizes and work arrays of different lengths share one
   // memory; a transform repeated after others must not change.
-  const x = noise(4096, 5);
+  const x = minimalStandard(4096, 5);
   const first = realFft(x);
-  for (let n = 16; n <= 1 << 16; n *= 4) realFft(noise(n, n));
-  applyFirOverlapAdd(noise(200, 1), noise(50_000, 2));
+  for (let n = 16; n <= 1 << 16; n *= 4) realFft(minimalStandard(n, n));
+  applyFirOverlapAdd(minimalStandard(200, 1), minimalStandard(50_000, 2));
   const again = realFft(x);
   assertSameBits(again.re, first.re, "re");
   assertSameBits(again.im, first.im, "im");

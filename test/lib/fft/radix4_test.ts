@@ -10,6 +10,7 @@ import {
 } from "../../../lib/fft/_radix4.ts";
 import { complexFft, inverseComplexFft, inverseRealFft, realFft } from "../../../lib/fft/mod.ts";
 import { assertClose } from "../../_tolerance.ts";
+import { firstDifference, minimalStandard } from "./_inputs.ts";
 
 interface SizeCase {
   kind: "real" | "inverseReal" | "complex";
@@ -26,28 +27,6 @@ interface SizeCase {
 const ref = JSON.parse(
   await Deno.readTextFile(new URL("../../reference/fft_sizes.json", import.meta.url)),
 ) as { versions: Record<string, string>; cases: SizeCase[] };
-
-/**
- * The inputs of fft_sizes.json: Park & Miller's minimal standard generator,
- * s ← 16807·s mod (2^31 − 1), value s/(2^31 − 1) − 0.5 (exact in doubles, and
- * the same recurrence as test/reference/make_fft_sizes.py).
- */
-function minimalStandard(n: number, seed: number): Float64Array {
-  const out = new Float64Array(n);
-  let s = seed;
-  for (let i = 0; i < n; i++) {
-    s = (s * 16807) % 2147483647;
-    out[i] = s / 2147483647 - 0.5;
-  }
-  return out;
-}
-
-/** Index of the first element where a and b differ (bit for bit, NaN-aware), or −1. */
-function firstDifference(a: ArrayLike<number>, b: ArrayLike<number>): number {
-  if (a.length !== b.length) return Math.min(a.length, b.length);
-  for (let i = 0; i < a.length; i++) if (!Object.is(a[i], b[i])) return i;
-  return -1;
-}
 
 const eps = Number.EPSILON;
 /**
